@@ -1,0 +1,24 @@
+import type { Lab65 } from 'culori';
+
+/**
+ * A colour in CIELAB. Needlemap's targets and lab-dip readings are CIELAB under D65 with the
+ * CIE 1964 10° observer, as textile colour measurement reports them.
+ */
+export interface Lab {
+  L: number;
+  a: number;
+  b: number;
+}
+
+/**
+ * The colour as a culori `lab65` object. culori's plain `lab` mode is D50 and would be adapted to
+ * D65 before any difference is taken, which changes the result; `lab65` passes the values through.
+ */
+export function toCuloriLab65(colour: Lab): Lab65 {
+  return { mode: 'lab65', l: colour.L, a: colour.a, b: colour.b };
+}
+
+/** A culori `lab65` object back to `{ L, a, b }`. */
+export function fromCuloriLab65(colour: Lab65): Lab {
+  return { L: colour.l, a: colour.a, b: colour.b };
+}
