@@ -1,0 +1,23 @@
+import next from 'eslint-config-next/core-web-vitals';
+import nextTs from 'eslint-config-next/typescript';
+
+const pure = ['lib/knit/**', 'lib/colour/**', 'lib/fit/**', 'lib/rules/**', 'lib/editor/**'];
+
+export default [
+  { ignores: ['.next/**', 'node_modules/**', '.pgdata/**', '.data/**', 'next-env.d.ts'] },
+  ...next,
+  ...nextTs,
+  {
+    rules: {
+      '@typescript-eslint/no-unused-vars': ['warn', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@next/next/no-html-link-for-pages': 'off',
+    },
+  },
+  {
+    // The computation core stays pure: no UI, framework or database imports.
+    files: pure,
+    rules: {
+      'no-restricted-imports': ['error', { patterns: ['react', 'react-dom', 'react-konva', 'konva', 'next', 'next/*', 'knex', 'pg', '@/lib/db/*', '@/components/*'] }],
+    },
+  },
+];

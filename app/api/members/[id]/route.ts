@@ -1,0 +1,27 @@
+import { NextResponse } from 'next/server';
+import { route, parseBody } from '@/lib/api/handler';
+import { authorize } from '@/lib/auth/authorize';
+import { countActiveAdmins, findMember, updateMember } from '@/lib/db/users';
+import { memberPatchSchema } from '@/lib/validations/auth';
+import { idParamSchema } from '@/lib/validations/style';
+import { HttpError, notFound } from '@/lib/api/errors';
+import { writeAudit } from '@/lib/db/audit';
+
+export const PATCH = route<{ id: string }>(async (req, params) => {
+  const user = await authorize('members:manage');
+  const { id } = idParamSchema.parse(params);
+  const patch = await parseBody(req, memberPatchSchema);
+  const member = await findMember(user.studioId, id);
+  if (!member) throw notFound('Member not found.');
+  const losesAdmin = member.role === 'admin' && member.active && (patch.active === false || (patch.role && patch.role !== 'admin'));
+  if (losesAdmin && (await countActiveAdmins(user.studioId)) <= 1) {
+    throw new HttpError(400, 'The studio needs at least one active admin.', { fieldErrors: { role: ['Keep at least one active admin'] } });
+  }
+  const role = patch.role ?? member.role;
+  if ((role === 'client' || role === 'mill') && !(patch.organisationId ?? member.organisationId)) {
+    throw new HttpError(400, 'Some fields need attention.', { fieldErrors: { organisationId: ['Mill and client accounts belong to an organisation'] } });
+  }
+  await updateMember(user.studioId, id, patch);
+  await writeAudit({ studioId: user.studioId, userId: user.id, action: 'member.update', details: { email: member.email, ...patch } });
+  return NextResponse.json({ member: await findMember(user.studioId, id) });
+});

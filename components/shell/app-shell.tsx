@@ -1,0 +1,36 @@
+import Link from 'next/link';
+import { NeedlemapMark } from './mark';
+import { SignOutButton } from './sign-out-button';
+import { NavLink } from './nav-link';
+import { can, isOutsideRole, roleLabels } from '@/lib/auth/roles';
+import type { SessionUser } from '@/lib/db/users';
+
+export function AppShell({ user, devPages, children }: { user: SessionUser; devPages: boolean; children: React.ReactNode }) {
+  const outside = isOutsideRole(user.role);
+  return (
+    <div className="min-h-screen">
+      <header className="sticky top-0 z-30 border-b border-rule bg-panel/95 backdrop-blur">
+        <div className="mx-auto flex h-12 max-w-[1600px] items-center gap-6 px-5">
+          <Link href="/styles" className="flex items-center gap-2">
+            <NeedlemapMark className="h-6 w-6" />
+            <span className="text-[15px] font-semibold tracking-tight">Needlemap</span>
+          </Link>
+          <nav className="flex items-center gap-1 text-sm" aria-label="Main">
+            <NavLink href="/styles">{outside ? (user.role === 'mill' ? 'Released to you' : 'Shared with you') : 'Styles'}</NavLink>
+            {can(user.role, 'members:manage') ? <NavLink href="/members">Members</NavLink> : null}
+          </nav>
+          <div className="ml-auto flex items-center gap-3 text-sm">
+            <div className="text-right leading-tight">
+              <div className="font-medium">{user.name}</div>
+              <div className="text-xs text-ink-faint">
+                {roleLabels[user.role]} · {user.organisationName ?? user.studioName}
+              </div>
+            </div>
+            <SignOutButton />
+          </div>
+        </div>
+      </header>
+      <main className="mx-auto max-w-[1600px] px-5 py-6">{children}</main>
+    </div>
+  );
+}

@@ -1,0 +1,5 @@
+/** The style workspace's sections, in the design's order. Only those built so far are listed. */
+export const workspaceSections = [
+  { slug: '', label: 'Brief' },
+  { slug: 'history', label: 'History' },
+] as const;

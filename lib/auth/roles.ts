@@ -1,0 +1,53 @@
+/**
+ * Roles and what each may do. Pure data: the one authorization helper (lib/auth/authorize.ts)
+ * reads it, and so does the UI to hide what a role can't use.
+ */
+export const roles = ['admin', 'designer', 'colour-lead', 'client', 'mill'] as const;
+export type Role = (typeof roles)[number];
+
+export const roleLabels: Record<Role, string> = {
+  admin: 'Admin',
+  designer: 'Designer',
+  'colour-lead': 'Colour lead',
+  client: 'Client reviewer',
+  mill: 'Mill',
+};
+
+export const permissions = [
+  'style:read',
+  'style:create',
+  'style:edit',
+  'style:archive',
+  'style:share',
+  'style:release',
+  'members:manage',
+  'library:read',
+  'library:edit',
+  'colour:edit',
+  'labdip:decide',
+  'proposal:comment',
+  'proposal:decide',
+  'mill:upload',
+  'mill:download',
+] as const;
+export type Permission = (typeof permissions)[number];
+
+const grants: Record<Role, readonly Permission[]> = {
+  admin: permissions,
+  designer: [
+    'style:read', 'style:create', 'style:edit', 'style:archive', 'style:share', 'style:release',
+    'library:read', 'library:edit', 'mill:download',
+  ],
+  'colour-lead': ['style:read', 'library:read', 'colour:edit', 'labdip:decide', 'mill:download'],
+  client: ['style:read', 'proposal:comment', 'proposal:decide'],
+  mill: ['style:read', 'mill:download', 'mill:upload'],
+};
+
+export function can(role: Role, permission: Permission): boolean {
+  return grants[role].includes(permission);
+}
+
+/** Outside accounts see only what was shared with their organisation. */
+export function isOutsideRole(role: Role): role is 'client' | 'mill' {
+  return role === 'client' || role === 'mill';
+}

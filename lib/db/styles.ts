@@ -1,0 +1,241 @@
+import type { Knex } from 'knex';
+import { db, type Db } from './knex';
+import { isOutsideRole } from '@/lib/auth/roles';
+import type { SessionUser } from './users';
+import type {
+  Construction, GarmentType, MachineSetup, SizeRange, StyleCreate, StylePatch, StyleStatus,
+} from '@/lib/validations/style';
+import { conflict, HttpError, notFound } from '@/lib/api/errors';
+
+export interface StyleShare { organisationId: string; name: string; kind: 'mill' | 'client' }
+
+export interface Style {
+  id: string;
+  code: string;
+  name: string;
+  season: string;
+  clientId: string | null;
+  clientName: string | null;
+  garmentType: GarmentType;
+  construction: Construction;
+  machine: MachineSetup;
+  sizes: SizeRange;
+  status: StyleStatus;
+  revision: number;
+  version: number;
+  authorName: string | null;
+  createdAt: string;
+  updatedAt: string;
+  shares: StyleShare[];
+}
+
+interface StyleRow {
+  id: string; code: string; name: string; season: string; client_id: string | null; client_name: string | null;
+  garment_type: GarmentType; construction: Construction; machine: MachineSetup; sizes: SizeRange;
+  status: StyleStatus; revision: number; version: number; author_name: string | null;
+  created_at: Date; updated_at: Date; shares: StyleShare[] | null;
+}
+
+function toStyle(r: StyleRow): Style {
+  return {
+    id: r.id, code: r.code, name: r.name, season: r.season, clientId: r.client_id, clientName: r.client_name,
+    garmentType: r.garment_type, construction: r.construction, machine: r.machine, sizes: r.sizes,
+    status: r.status, revision: r.revision, version: r.version, authorName: r.author_name,
+    createdAt: r.created_at.toISOString(), updatedAt: r.updated_at.toISOString(), shares: r.shares ?? [],
+  };
+}
+
+/**
+ * Styles the user may see: their studio's, not archived, and for outside accounts only those
+ * shared with their organisation. Every style query starts here.
+ */
+export function visibleStyles(user: SessionUser, q: Db = db()): Knex.QueryBuilder {
+  const qb = q('styles as st').where('st.studio_id', user.studioId).whereNull('st.archived_at');
+  if (isOutsideRole(user.role)) {
+    qb.whereExists(
+      q('style_shares as sh').whereRaw('sh.style_id = st.id').andWhere('sh.organisation_id', user.organisationId ?? ''),
+    );
+  }
+  return qb;
+}
+
+function selectStyle(qb: Knex.QueryBuilder, q: Db, user: SessionUser) {
+  // Outside accounts see only their own organisation among the shares.
+  const shareFilter = isOutsideRole(user.role) ? 'and sh.organisation_id = ?' : '';
+  const shareArgs = isOutsideRole(user.role) ? [user.organisationId] : [];
+  return qb
+    .leftJoin('organisations as c', 'c.id', 'st.client_id')
+    .leftJoin('users as au', 'au.id', 'st.created_by')
+    .select(
+      'st.id', 'st.code', 'st.name', 'st.season', 'st.client_id', 'c.name as client_name', 'st.garment_type',
+      'st.construction', 'st.machine', 'st.sizes', 'st.status', 'st.revision', 'st.version',
+      'au.name as author_name', 'st.created_at', 'st.updated_at',
+      q.raw(
+        `coalesce((select json_agg(json_build_object('organisationId', o.id, 'name', o.name, 'kind', o.kind) order by o.kind, o.name)
+           from style_shares sh join organisations o on o.id = sh.organisation_id
+           where sh.style_id = st.id ${shareFilter}), '[]'::json) as shares`,
+        shareArgs,
+      ),
+    );
+}
+
+export async function listStyles(
+  user: SessionUser,
+  filter: { q?: string; status?: StyleStatus; clientId?: string } = {},
+  q: Db = db(),
+): Promise<Style[]> {
+  const qb = visibleStyles(user, q);
+  if (filter.q) {
+    const like = `%${filter.q.replace(/[\\%_]/g, (m) => `\\${m}`)}%`;
+    qb.where((w) => w.whereILike('st.code', like).orWhereILike('st.name', like).orWhereILike('st.season', like));
+  }
+  if (filter.status) qb.andWhere('st.status', filter.status);
+  if (filter.clientId) qb.andWhere('st.client_id', filter.clientId);
+  const rows = (await selectStyle(qb, q, user).orderBy('st.updated_at', 'desc').limit(1000)) as StyleRow[];
+  return rows.map(toStyle);
+}
+
+export async function findStyle(user: SessionUser, id: string, q: Db = db()): Promise<Style | null> {
+  const row = (await selectStyle(visibleStyles(user, q).andWhere('st.id', id), q, user).first()) as StyleRow | undefined;
+  return row ? toStyle(row) : null;
+}
+
+async function assertClientOfStudio(user: SessionUser, clientId: string | null | undefined, q: Db) {
+  if (!clientId) return;
+  const org = await q('organisations').where({ id: clientId, studio_id: user.studioId, kind: 'client' }).first();
+  if (!org) throw new HttpError(400, 'Some fields need attention.', { fieldErrors: { clientId: ['Unknown client'] } });
+}
+
+function uniqueViolation(err: unknown): boolean {
+  return !!err && typeof err === 'object' && (err as { code?: string }).code === '23505';
+}
+
+const codeTaken = () =>
+  new HttpError(400, 'Some fields need attention.', { fieldErrors: { code: ['This style code is already used in your studio'] } });
+
+export async function createStyle(user: SessionUser, input: StyleCreate, q: Knex = db()): Promise<Style> {
+  return q.transaction(async (trx) => {
+    await assertClientOfStudio(user, input.clientId, trx);
+    let id: string;
+    try {
+      const [row] = await trx('styles')
+        .insert({
+          studio_id: user.studioId,
+          code: input.code,
+          name: input.name,
+          season: input.season,
+          client_id: input.clientId,
+          garment_type: input.garmentType,
+          construction: input.construction,
+          machine: JSON.stringify(input.machine),
+          sizes: JSON.stringify(input.sizes),
+          status: input.status,
+          created_by: user.id,
+        })
+        .returning('id');
+      id = (row as { id: string }).id;
+    } catch (err) {
+      if (uniqueViolation(err)) throw codeTaken();
+      throw err;
+    }
+    if (input.clientId) {
+      await trx('style_shares').insert({ style_id: id, organisation_id: input.clientId, shared_by: user.id }).onConflict().ignore();
+    }
+    await trx('audit_log').insert({
+      studio_id: user.studioId, style_id: id, user_id: user.id, action: 'style.create',
+      details: JSON.stringify({ code: input.code, name: input.name }),
+    });
+    const style = await findStyle(user, id, trx);
+    if (!style) throw notFound();
+    return style;
+  });
+}
+
+/**
+ * Applies a patch when `patch.version` is the stored version; otherwise 409 and nothing changes.
+ */
+export async function updateStyle(user: SessionUser, id: string, patch: StylePatch, q: Knex = db()): Promise<Style> {
+  return q.transaction(async (trx) => {
+    const current = await findStyle(user, id, trx);
+    if (!current) throw notFound('Style not found.');
+    const construction = patch.construction ?? current.construction;
+    const machine = patch.machine ?? current.machine;
+    if ((construction === 'seamless') !== (machine.kind === 'circular')) {
+      throw new HttpError(400, 'Some fields need attention.', {
+        fieldErrors: { 'machine.kind': ['Seamless styles use a circular machine; flat styles a V-bed'] },
+      });
+    }
+    await assertClientOfStudio(user, patch.clientId, trx);
+    const values: Record<string, unknown> = { updated_at: trx.fn.now(), version: trx.raw('version + 1') };
+    const changed: Record<string, unknown> = {};
+    const map: [keyof StylePatch, string][] = [
+      ['code', 'code'], ['name', 'name'], ['season', 'season'], ['clientId', 'client_id'],
+      ['garmentType', 'garment_type'], ['construction', 'construction'], ['status', 'status'],
+    ];
+    for (const [k, col] of map) {
+      if (patch[k] !== undefined) { values[col] = patch[k]; changed[k] = patch[k]; }
+    }
+    if (patch.machine) { values.machine = JSON.stringify(patch.machine); changed.machine = patch.machine; }
+    if (patch.sizes) { values.sizes = JSON.stringify(patch.sizes); changed.sizes = patch.sizes; }
+    let n: number;
+    try {
+      n = await trx('styles')
+        .where({ id, studio_id: user.studioId, version: patch.version })
+        .whereNull('archived_at')
+        .update(values);
+    } catch (err) {
+      if (uniqueViolation(err)) throw codeTaken();
+      throw err;
+    }
+    if (n === 0) {
+      throw conflict('Someone saved this style after you opened it. Reload to see their changes.', {
+        currentVersion: current.version,
+      });
+    }
+    if (patch.clientId) {
+      await trx('style_shares').insert({ style_id: id, organisation_id: patch.clientId, shared_by: user.id }).onConflict().ignore();
+    }
+    await trx('audit_log').insert({
+      studio_id: user.studioId, style_id: id, user_id: user.id, action: 'style.update', details: JSON.stringify(changed),
+    });
+    const style = await findStyle(user, id, trx);
+    if (!style) throw notFound();
+    return style;
+  });
+}
+
+export async function archiveStyle(user: SessionUser, id: string, q: Knex = db()): Promise<void> {
+  await q.transaction(async (trx) => {
+    const n = await trx('styles')
+      .where({ id, studio_id: user.studioId })
+      .whereNull('archived_at')
+      .update({ archived_at: trx.fn.now(), updated_at: trx.fn.now(), version: trx.raw('version + 1') });
+    if (n === 0) throw notFound('Style not found.');
+    await trx('audit_log').insert({ studio_id: user.studioId, style_id: id, user_id: user.id, action: 'style.archive', details: '{}' });
+  });
+}
+
+export async function shareStyle(user: SessionUser, styleId: string, organisationId: string, q: Knex = db()): Promise<void> {
+  await q.transaction(async (trx) => {
+    const style = await findStyle(user, styleId, trx);
+    if (!style) throw notFound('Style not found.');
+    const org = await trx('organisations').where({ id: organisationId, studio_id: user.studioId }).first();
+    if (!org) throw new HttpError(400, 'Some fields need attention.', { fieldErrors: { organisationId: ['Unknown organisation'] } });
+    await trx('style_shares').insert({ style_id: styleId, organisation_id: organisationId, shared_by: user.id }).onConflict().ignore();
+    await trx('audit_log').insert({
+      studio_id: user.studioId, style_id: styleId, user_id: user.id, action: 'style.share', details: JSON.stringify({ organisation: org.name }),
+    });
+  });
+}
+
+export async function unshareStyle(user: SessionUser, styleId: string, organisationId: string, q: Knex = db()): Promise<void> {
+  await q.transaction(async (trx) => {
+    const style = await findStyle(user, styleId, trx);
+    if (!style) throw notFound('Style not found.');
+    const n = await trx('style_shares').where({ style_id: styleId, organisation_id: organisationId }).del();
+    if (n === 0) throw notFound('That organisation had no access.');
+    await trx('audit_log').insert({
+      studio_id: user.studioId, style_id: styleId, user_id: user.id, action: 'style.unshare', details: JSON.stringify({ organisationId }),
+    });
+  });
+}
