@@ -5,6 +5,10 @@
  * extension as a fraction (0.25 = 25 % stretched), pressure in Pa and mmHg.
  */
 
+import type { ForceExtensionPoint } from '@/lib/knit/texture';
+
+export type { ForceExtensionPoint };
+
 /** 1 mmHg = 133.322 Pa (conventional millimetre of mercury, 133.322 387 415 Pa). */
 export const pascalPerMmHg = 133.322;
 
@@ -27,12 +31,7 @@ export function laplacePressurePa(tensionNPerCm: number, girthCm: number): numbe
   return tensionNPerM / radiusM;
 }
 
-/** One point of a fabric's force–extension test: extension as a fraction, tension in N/cm. */
-export interface ForceExtensionPoint {
-  extension: number;
-  tensionNPerCm: number;
-}
-
+/** A texture's force–extension points (`Texture.forceExtension`), in any order. */
 export type ForceExtensionCurve = readonly ForceExtensionPoint[];
 
 function sortedCurve(curve: ForceExtensionCurve): ForceExtensionPoint[] {
