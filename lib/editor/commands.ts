@@ -264,8 +264,10 @@ export function addMirroredCopies(
 
 /**
  * The document with a copy of each zone on the other panel of its pair (front ↔ back,
- * left ↔ right) at the same needles and courses, on top of that panel's stack; and the new ids.
- * Zones whose panel has no counterpart are skipped.
+ * left ↔ right), on top of that panel's stack; and the new ids. Panels of the same width keep
+ * the needles and courses; a narrower or wider panel scales the needles so the zone keeps its
+ * place relative to the edges and the centre line. Zones whose panel has no counterpart are
+ * skipped.
  */
 export function copyZonesToCounterpart(
   doc: BodyMapDocument,
@@ -280,6 +282,7 @@ export function copyZonesToCounterpart(
     const target = counterpartPanel(out, ref.panel.id);
     if (!target) continue;
     const copied = copyZoneToPanel(ref.zone, ref.panel, target);
+    if (!copied) continue;
     const id = newId();
     const next = addZone(out, target.id, copied.polygon, {
       id,

@@ -1,34 +1,18 @@
 /**
- * Plane geometry on stitch-space polygons, as the editor needs it.
- *
- * `mirrorZone`, `copyZoneToPanel`, `isSimplePolygon` and `polygonArea` are meant to live in
- * `lib/knit/raster.ts`; they are written here until that module exists and should then be
- * replaced by re-exports from it.
+ * Plane geometry on stitch-space polygons, as the editor needs it. Area, simplicity, mirroring
+ * and copying between panels come from the stitch raster module; the hit-testing and drawing
+ * helpers the editor alone uses are here.
  */
-import type { Panel, StitchPoint, StitchPolygon, Zone } from '@/lib/knit/panel';
+import type { StitchPoint, StitchPolygon } from '@/lib/knit/panel';
+
+export { copyZoneToPanel, isSimplePolygon, mirrorZone, polygonArea, signedPolygonArea } from '@/lib/knit/raster';
+export type { ZoneCopyMode } from '@/lib/knit/raster';
 
 export interface StitchBounds {
   minX: number;
   minY: number;
   maxX: number;
   maxY: number;
-}
-
-/** Signed area by the shoelace formula, in needles × courses; positive when y-down clockwise. */
-export function signedPolygonArea(polygon: readonly StitchPoint[]): number {
-  let twice = 0;
-  const n = polygon.length;
-  for (let i = 0; i < n; i++) {
-    const a = polygon[i]!;
-    const b = polygon[(i + 1) % n]!;
-    twice += a.x * b.y - b.x * a.y;
-  }
-  return twice / 2;
-}
-
-/** Area of a simple polygon in needles × courses (stitch cells), by the shoelace formula. */
-export function polygonArea(polygon: readonly StitchPoint[]): number {
-  return Math.abs(signedPolygonArea(polygon));
 }
 
 /** Sign of the turn a → b → c: 1 left, -1 right, 0 collinear (y-down axes flip the meaning). */
@@ -69,32 +53,6 @@ function foldsBack(a: StitchPoint, b: StitchPoint, c: StitchPoint): boolean {
 
 function samePoint(a: StitchPoint, b: StitchPoint): boolean {
   return Math.abs(a.x - b.x) < 1e-9 && Math.abs(a.y - b.y) < 1e-9;
-}
-
-/**
- * Whether a closed polygon is simple: at least 3 distinct vertices, no edge touching a
- * non-adjacent edge, no edge folding back onto its neighbour, and a non-zero area.
- * Pairwise edge test, O(n²), ample for hand-drawn zones.
- */
-export function isSimplePolygon(polygon: readonly StitchPoint[]): boolean {
-  const n = polygon.length;
-  if (n < 3) return false;
-  for (let i = 0; i < n; i++) {
-    for (let j = i + 1; j < n; j++) {
-      if (samePoint(polygon[i]!, polygon[j]!)) return false;
-    }
-  }
-  for (let i = 0; i < n; i++) {
-    const a = polygon[i]!;
-    const b = polygon[(i + 1) % n]!;
-    const c = polygon[(i + 2) % n]!;
-    if (foldsBack(a, b, c)) return false;
-    for (let j = i + 2; j < n; j++) {
-      if (i === 0 && j === n - 1) continue; // the closing edge is adjacent to the first
-      if (segmentsIntersect(a, b, polygon[j]!, polygon[(j + 1) % n]!)) return false;
-    }
-  }
-  return polygonArea(polygon) > 1e-9;
 }
 
 /**
@@ -160,28 +118,4 @@ export function closestPointOnSegment(
   const len2 = dx * dx + dy * dy;
   const t = len2 === 0 ? 0 : Math.max(0, Math.min(1, ((p.x - a.x) * dx + (p.y - a.y) * dy) / len2));
   return { x: a.x + t * dx, y: a.y + t * dy, t };
-}
-
-/**
- * A zone reflected across its panel's centre line (x ↦ panelWidth − x). The vertex order is
- * reversed so the winding stays the same. Keeps the zone's id; callers give copies a new one.
- */
-export function mirrorZone(zone: Zone, panelWidth: number): Zone {
-  const polygon = zone.polygon.map((p) => ({ x: panelWidth - p.x, y: p.y })).reverse();
-  return { ...zone, polygon };
-}
-
-/**
- * A zone placed on another panel at the same needle and course positions (front and back of a
- * tube share their needle numbering across the drawing), each vertex held inside the target
- * panel's bounds. Keeps the zone's id; callers give copies a new one. `from` is the zone's own
- * panel (part of the shared signature; positions do not depend on it).
- */
-// eslint-disable-next-line @typescript-eslint/no-unused-vars
-export function copyZoneToPanel(zone: Zone, from: Panel, to: Panel): Zone {
-  const polygon = zone.polygon.map((p) => ({
-    x: Math.min(Math.max(p.x, 0), to.widthNeedles),
-    y: Math.min(Math.max(p.y, 0), to.heightCourses),
-  }));
-  return { ...zone, polygon };
 }
