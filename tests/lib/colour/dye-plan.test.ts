@@ -80,6 +80,7 @@ describe('planDyeing, garment-dyed', () => {
 
   it('drops the heat finding when the studio runs the disperse bath at the elastane limit', () => {
     const limit = fibres.elastane.wetLimitC;
+    expect(limit).toBeDefined();
     const plan = planDyeing({
       yarns: [pes, el],
       targets: [target('body', ['pes', 'el'], grey)],
