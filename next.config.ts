@@ -5,6 +5,8 @@ const nextConfig: NextConfig = {
   serverExternalPackages: ['knex', 'pg'],
   poweredByHeader: false,
   typedRoutes: false,
+  // The type check runs once for the whole repo (`tsc --noEmit` in the test command), not again per build.
+  typescript: { ignoreBuildErrors: true },
 };
 
 export default nextConfig;

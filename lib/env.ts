@@ -11,11 +11,13 @@ const schema = z.object({
   /** "true" when the app is served over https (cookies marked Secure). */
   COOKIE_SECURE: z.enum(['true', 'false']).optional(),
   APP_URL: z.string().url().default('http://127.0.0.1:3000'),
+  /** "true" behind a reverse proxy: the first X-Forwarded-For hop is the caller's address. */
+  TRUST_PROXY: z.enum(['true', 'false']).optional(),
   /** "true" in the demo and in tests: allows the development-only pages (mail outbox). */
   NEEDLEMAP_DEV_PAGES: z.enum(['true', 'false']).optional(),
 });
 
-export type Env = z.infer<typeof schema> & { SESSION_SECRET: string; cookieSecure: boolean; devPages: boolean };
+export type Env = z.infer<typeof schema> & { SESSION_SECRET: string; cookieSecure: boolean; devPages: boolean; trustProxy: boolean };
 
 let cached: Env | undefined;
 
@@ -34,6 +36,7 @@ export function env(): Env {
     ...e,
     SESSION_SECRET: e.SESSION_SECRET ?? DEV_SECRET,
     cookieSecure: e.COOKIE_SECURE ? e.COOKIE_SECURE === 'true' : e.APP_URL.startsWith('https:'),
+    trustProxy: e.TRUST_PROXY === 'true',
     devPages: e.NODE_ENV !== 'production' || e.NEEDLEMAP_DEV_PAGES === 'true',
   };
   return cached;

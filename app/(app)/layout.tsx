@@ -1,13 +1,12 @@
 import { redirect } from 'next/navigation';
 import { currentUser } from '@/lib/auth/authorize';
 import { AppShell } from '@/components/shell/app-shell';
-import { env } from '@/lib/env';
 
 export default async function AppLayout({ children }: { children: React.ReactNode }) {
   const user = await currentUser();
   if (!user) redirect('/sign-in');
   return (
-    <AppShell user={user} devPages={env().devPages}>
+    <AppShell user={user}>
       {children}
     </AppShell>
   );

@@ -5,7 +5,7 @@ import { NavLink } from './nav-link';
 import { can, isOutsideRole, roleLabels } from '@/lib/auth/roles';
 import type { SessionUser } from '@/lib/db/users';
 
-export function AppShell({ user, devPages, children }: { user: SessionUser; devPages: boolean; children: React.ReactNode }) {
+export function AppShell({ user, children }: { user: SessionUser; children: React.ReactNode }) {
   const outside = isOutsideRole(user.role);
   return (
     <div className="min-h-screen">

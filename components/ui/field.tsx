@@ -1,7 +1,10 @@
 import { forwardRef, useId } from 'react';
 
 const control =
-  'block w-full rounded-md border border-rule-strong bg-panel px-2.5 py-1.5 text-sm text-ink shadow-xs placeholder:text-ink-faint focus:border-spruce-500 focus:outline-none focus:ring-2 focus:ring-spruce-100 aria-[invalid=true]:border-madder-500';
+  'block rounded-md border border-rule-strong bg-panel px-2.5 py-1.5 text-sm text-ink shadow-xs placeholder:text-ink-faint focus:border-spruce-500 focus:outline-none focus:ring-2 focus:ring-spruce-100 aria-[invalid=true]:border-madder-500';
+
+/** Full width unless the caller sets a width or max-width. */
+const widthOf = (className: string) => (/(^|\s)(w-|max-w-)/.test(className) ? (/(^|\s)max-w-/.test(className) ? 'w-full' : '') : 'w-full');
 
 /** A labelled field with its error beside it. The label is bound to the control for screen readers and tests. */
 export function Field({ label, error, hint, children, className = '' }: { label: string; error?: string; hint?: string; children: (id: string) => React.ReactNode; className?: string }) {
@@ -16,9 +19,9 @@ export function Field({ label, error, hint, children, className = '' }: { label:
 }
 
 export const Input = forwardRef<HTMLInputElement, React.InputHTMLAttributes<HTMLInputElement>>(function Input({ className = '', ...props }, ref) {
-  return <input ref={ref} className={`${control} h-9 ${className}`} {...props} />;
+  return <input ref={ref} className={`${control} ${widthOf(className)} h-9 ${className}`} {...props} />;
 });
 
 export const Select = forwardRef<HTMLSelectElement, React.SelectHTMLAttributes<HTMLSelectElement>>(function Select({ className = '', ...props }, ref) {
-  return <select ref={ref} className={`${control} h-9 pr-8 ${className}`} {...props} />;
+  return <select ref={ref} className={`${control} ${widthOf(className)} h-9 pr-8 ${className}`} {...props} />;
 });

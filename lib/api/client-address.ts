@@ -1,8 +1,15 @@
+import 'server-only';
 import type { NextRequest } from 'next/server';
+import { env } from '@/lib/env';
 
-/** The caller's address for rate limiting: the first forwarded hop when behind a proxy. */
+/**
+ * The caller's address for rate limiting. Forwarded headers are trusted only when the app is
+ * configured to sit behind a proxy (TRUST_PROXY=true); otherwise anyone could pick an address.
+ */
 export function clientAddress(req: NextRequest): string {
-  const fwd = req.headers.get('x-forwarded-for');
-  if (fwd) return fwd.split(',')[0]!.trim().slice(0, 64);
-  return (req.headers.get('x-real-ip') ?? 'local').slice(0, 64);
+  if (env().trustProxy) {
+    const fwd = req.headers.get('x-forwarded-for');
+    if (fwd) return fwd.split(',')[0]!.trim().slice(0, 64);
+  }
+  return 'direct';
 }

@@ -1,0 +1,87 @@
+import { describe, expect, it } from 'vitest';
+import { accounts, anonymous, as, Client, demoPassword } from './helpers';
+
+describe('sign-in', () => {
+  it('signs in, answers who am I, signs out', async () => {
+    const c = new Client('designer');
+    const res = await c.post('/api/auth/sign-in', { email: accounts.designer, password: demoPassword });
+    expect(res.status).toBe(200);
+    expect(res.json.user.role).toBe('designer');
+    const cookieHeader = res.headers.getSetCookie().join('\n');
+    expect(cookieHeader).toMatch(/HttpOnly/i);
+    expect(cookieHeader).toMatch(/SameSite=Lax/i);
+    // Tests run over plain http on 127.0.0.1, so the cookie must not be marked Secure here.
+    expect(cookieHeader).not.toMatch(/;\s*Secure/i);
+
+    const me = await c.get('/api/auth/me');
+    expect(me.status).toBe(200);
+    expect(me.json.user.email).toBe(accounts.designer);
+    expect(me.json.user).not.toHaveProperty('passwordHash');
+
+    await c.post('/api/auth/sign-out');
+    expect((await c.get('/api/auth/me')).status).toBe(401);
+  });
+
+  it('accepts the e-mail in any case', async () => {
+    const c = new Client('x');
+    const res = await c.post('/api/auth/sign-in', { email: accounts.admin.toUpperCase(), password: demoPassword });
+    expect(res.status).toBe(200);
+  });
+
+  it('rejects a wrong password with 401 and a malformed body with 400', async () => {
+    const c = anonymous();
+    expect((await c.post('/api/auth/sign-in', { email: accounts['colour-lead'], password: 'nope' })).status).toBe(401);
+    const bad = await c.post('/api/auth/sign-in', { email: 'not-an-email' });
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.json.fieldErrors)).toEqual(expect.arrayContaining(['email', 'password']));
+    const notJson = await c.request('POST', '/api/auth/sign-in', '{oops', { 'content-type': 'application/json' });
+    expect(notJson.status).toBe(400);
+  });
+
+  it('rate-limits failed sign-ins per account with 429, even with the right password afterwards', async () => {
+    const email = 'nobody-here@hollowfell.example';
+    const c = anonymous();
+    const statuses: number[] = [];
+    for (let i = 0; i < 6; i++) {
+      statuses.push((await c.request('POST', '/api/auth/sign-in', { email, password: 'wrong' }, { 'x-forwarded-for': `10.9.0.${i}` })).status);
+    }
+    expect(statuses.slice(0, 5)).toEqual([401, 401, 401, 401, 401]);
+    expect(statuses[5]).toBe(429);
+    const blocked = await c.request('POST', '/api/auth/sign-in', { email, password: 'wrong' });
+    expect(blocked.status).toBe(429);
+    expect(Number(blocked.headers.get('retry-after'))).toBeGreaterThan(0);
+  });
+
+  it('rate-limits failed sign-ins per address across accounts', async () => {
+    const c = anonymous();
+    const addr = { 'x-forwarded-for': '10.77.0.1' };
+    let last = 0;
+    for (let i = 0; i < 31; i++) {
+      last = (await c.request('POST', '/api/auth/sign-in', { email: `probe${i}@elsewhere.example`, password: 'x' }, addr)).status;
+    }
+    expect(last).toBe(429);
+    // A different address is not blocked.
+    const other = await c.request('POST', '/api/auth/sign-in', { email: 'probe-x@elsewhere.example', password: 'x' }, { 'x-forwarded-for': '10.77.0.2' });
+    expect(other.status).toBe(401);
+  });
+
+  it('a deactivated account cannot sign in and its session stops working', async () => {
+    const admin = await as('admin');
+    const email = `temp-${Date.now()}@hollowfell.example`;
+    const created = await admin.post('/api/members', { email, name: 'Temp Knitter', role: 'designer', password: 'temporary-pass-1' });
+    expect(created.status).toBe(201);
+    const temp = new Client('temp');
+    expect((await temp.post('/api/auth/sign-in', { email, password: 'temporary-pass-1' })).status).toBe(200);
+    expect((await temp.get('/api/styles')).status).toBe(200);
+    expect((await admin.patch(`/api/members/${created.json.member.id}`, { active: false })).status).toBe(200);
+    expect((await temp.get('/api/styles')).status).toBe(401);
+    expect((await new Client('t2').post('/api/auth/sign-in', { email, password: 'temporary-pass-1' })).status).toBe(401);
+  });
+
+  it('keeps at least one active admin', async () => {
+    const admin = await as('admin');
+    const me = await admin.get('/api/auth/me');
+    const res = await admin.patch(`/api/members/${me.json.user.id}`, { role: 'designer' });
+    expect(res.status).toBe(400);
+  });
+});

@@ -1,0 +1,146 @@
+/**
+ * Every route handler, called as every role and signed out, with the status each must answer.
+ * The list of routes is read from app/api: a new route without entries here fails this test.
+ */
+import { readdirSync, readFileSync, statSync } from 'node:fs';
+import path from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { anonymous, as, accounts, Client, demoPassword, newStyleBody, styleByCode, type Account } from './helpers';
+
+type Caller = 'anon' | 'admin' | 'designer' | 'colour-lead' | 'client' | 'mill';
+const callers: Caller[] = ['anon', 'admin', 'designer', 'colour-lead', 'client', 'mill'];
+
+interface Ctx {
+  sharedStyleId: string;
+  kestenholmId: string;
+  throwawayMemberId: string;
+}
+
+type Res = { status: number };
+interface Entry {
+  expect: Record<Caller, number>;
+  run: (c: Client, ctx: Ctx, caller: Caller) => Promise<Res>;
+}
+
+const staffOnly = (ok: number) => ({ anon: 401, admin: ok, designer: ok, 'colour-lead': ok, client: 403, mill: 403 });
+const editors = (ok: number) => ({ anon: 401, admin: ok, designer: ok, 'colour-lead': 403, client: 403, mill: 403 });
+const adminOnly = (ok: number) => ({ anon: 401, admin: ok, designer: 403, 'colour-lead': 403, client: 403, mill: 403 });
+const everyone = (ok: number) => ({ anon: 401, admin: ok, designer: ok, 'colour-lead': ok, client: ok, mill: ok });
+
+async function freshStyle() {
+  const designer = await as('designer');
+  const res = await designer.post('/api/styles', newStyleBody());
+  return res.json.style as { id: string; version: number };
+}
+
+export const matrix: Record<string, Entry> = {
+  'GET /api/health': {
+    expect: { anon: 200, admin: 200, designer: 200, 'colour-lead': 200, client: 200, mill: 200 },
+    run: (c) => c.get('/api/health'),
+  },
+  'POST /api/auth/sign-in': {
+    // Unknown accounts are refused alike for everyone (valid sign-in is covered in auth.test.ts).
+    expect: { anon: 401, admin: 401, designer: 401, 'colour-lead': 401, client: 401, mill: 401 },
+    run: (c, _ctx, caller) => c.post('/api/auth/sign-in', { email: `matrix-${caller}@nowhere.example`, password: 'x' }),
+  },
+  'POST /api/auth/sign-out': {
+    expect: { anon: 200, admin: 200, designer: 200, 'colour-lead': 200, client: 200, mill: 200 },
+    run: async (_c, _ctx, caller) => {
+      // A session of its own, so the shared clients stay signed in.
+      const own = new Client('own');
+      if (caller !== 'anon') await own.post('/api/auth/sign-in', { email: accounts[caller as Account], password: demoPassword });
+      return own.post('/api/auth/sign-out');
+    },
+  },
+  'GET /api/auth/me': { expect: everyone(200), run: (c) => c.get('/api/auth/me') },
+  'GET /api/styles': { expect: everyone(200), run: (c) => c.get('/api/styles') },
+  'POST /api/styles': { expect: editors(201), run: (c) => c.post('/api/styles', newStyleBody()) },
+  'GET /api/styles/[id]': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}`) },
+  'PATCH /api/styles/[id]': {
+    expect: editors(200),
+    run: async (c) => {
+      const s = await freshStyle();
+      return c.patch(`/api/styles/${s.id}`, { version: s.version, name: 'Matrix rename' });
+    },
+  },
+  'DELETE /api/styles/[id]': {
+    expect: editors(200),
+    run: async (c) => c.delete(`/api/styles/${(await freshStyle()).id}`),
+  },
+  'GET /api/styles/[id]/history': { expect: staffOnly(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/history`) },
+  'POST /api/styles/[id]/shares': {
+    expect: editors(201),
+    run: async (c, ctx) => c.post(`/api/styles/${(await freshStyle()).id}/shares`, { organisationId: ctx.kestenholmId }),
+  },
+  'DELETE /api/styles/[id]/shares/[organisationId]': {
+    expect: editors(200),
+    run: async (c, ctx) => {
+      const s = await freshStyle();
+      await (await as('designer')).post(`/api/styles/${s.id}/shares`, { organisationId: ctx.kestenholmId });
+      return c.delete(`/api/styles/${s.id}/shares/${ctx.kestenholmId}`);
+    },
+  },
+  'GET /api/organisations': { expect: staffOnly(200), run: (c) => c.get('/api/organisations') },
+  'GET /api/members': { expect: adminOnly(200), run: (c) => c.get('/api/members') },
+  'POST /api/members': {
+    expect: adminOnly(201),
+    run: (c) =>
+      c.post('/api/members', {
+        email: `m-${Date.now()}-${Math.random().toString(36).slice(2)}@hollowfell.example`,
+        name: 'Matrix Member', role: 'designer', password: 'matrix-pass-123',
+      }),
+  },
+  'PATCH /api/members/[id]': {
+    expect: adminOnly(200),
+    run: (c, ctx) => c.patch(`/api/members/${ctx.throwawayMemberId}`, { name: 'Matrix Renamed' }),
+  },
+};
+
+/** Every METHOD + path exported by a route.ts under app/api. */
+function discoverRoutes(): string[] {
+  const root = path.resolve(import.meta.dirname, '../../app/api');
+  const found: string[] = [];
+  const walk = (dir: string) => {
+    for (const name of readdirSync(dir)) {
+      const p = path.join(dir, name);
+      if (statSync(p).isDirectory()) walk(p);
+      else if (name === 'route.ts') {
+        const src = readFileSync(p, 'utf8');
+        const url = '/api/' + path.relative(root, path.dirname(p)).split(path.sep).join('/');
+        for (const m of src.matchAll(/export\s+(?:const|async\s+function|function)\s+(GET|POST|PUT|PATCH|DELETE)\b/g)) {
+          found.push(`${m[1]} ${url.replace(/\/$/, '')}`);
+        }
+      }
+    }
+  };
+  walk(root);
+  return found.sort();
+}
+
+describe('authorization matrix', () => {
+  const ctx = {} as Ctx;
+  const clients = {} as Record<Caller, Client>;
+
+  beforeAll(async () => {
+    for (const c of callers) clients[c] = c === 'anon' ? anonymous() : await as(c);
+    ctx.sharedStyleId = (await styleByCode('HF27-101')).id;
+    const orgs = (await clients.admin.get('/api/organisations')).json.organisations;
+    ctx.kestenholmId = orgs.find((o: { name: string }) => o.name === 'Kestenholm Outdoor').id;
+    const m = await clients.admin.post('/api/members', {
+      email: `throwaway-${Date.now()}@hollowfell.example`, name: 'Throwaway', role: 'designer', password: 'throwaway-123',
+    });
+    ctx.throwawayMemberId = m.json.member.id;
+  });
+
+  it('lists every route handler', () => {
+    expect(Object.keys(matrix).sort()).toEqual(discoverRoutes());
+  });
+
+  for (const [key, entry] of Object.entries(matrix)) {
+    it(key, async () => {
+      const got: Record<string, number> = {};
+      for (const caller of callers) got[caller] = (await entry.run(clients[caller], ctx, caller)).status;
+      expect(got).toEqual(entry.expect);
+    });
+  }
+});

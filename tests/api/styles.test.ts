@@ -1,0 +1,130 @@
+import { describe, expect, it } from 'vitest';
+import { as, newStyleBody, styleByCode, uniqueCode } from './helpers';
+
+describe('styles API', () => {
+  it('creates a style, lists it, reads it', async () => {
+    const designer = await as('designer');
+    const body = newStyleBody();
+    const res = await designer.post('/api/styles', body);
+    expect(res.status).toBe(201);
+    expect(res.json.style).toMatchObject({ code: body.code, status: 'draft', revision: 1, version: 1, authorName: 'Tamsin Orlo' });
+    const list = await designer.get(`/api/styles?q=${encodeURIComponent(body.code)}`);
+    expect(list.json.styles.map((s: { code: string }) => s.code)).toEqual([body.code]);
+    const one = await designer.get(`/api/styles/${res.json.style.id}`);
+    expect(one.status).toBe(200);
+    expect(one.json.style.machine).toEqual(body.machine);
+  });
+
+  it('answers 400 with field errors for bad input and saves nothing', async () => {
+    const designer = await as('designer');
+    const code = uniqueCode();
+    const res = await designer.post('/api/styles', {
+      ...newStyleBody(code),
+      name: '',
+      machine: { kind: 'circular', diameterIn: -3, gauge: 28, feeders: 8 },
+      sizes: { labels: ['S', 'M'], base: 'XL' },
+    });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.json.fieldErrors)).toEqual(expect.arrayContaining(['name', 'machine.diameterIn', 'sizes.base']));
+    const list = await designer.get(`/api/styles?q=${code}`);
+    expect(list.json.styles).toHaveLength(0);
+  });
+
+  it('refuses a flat style on a circular machine', async () => {
+    const designer = await as('designer');
+    const res = await designer.post('/api/styles', { ...newStyleBody(), construction: 'flat' });
+    expect(res.status).toBe(400);
+    expect(res.json.fieldErrors['machine.kind']).toBeDefined();
+  });
+
+  it('refuses a duplicate code in the studio with a field error', async () => {
+    const designer = await as('designer');
+    const res = await designer.post('/api/styles', newStyleBody('HF27-101'));
+    expect(res.status).toBe(400);
+    expect(res.json.fieldErrors.code[0]).toMatch(/already used/);
+  });
+
+  it('PATCH with the current version saves; a stale version gets 409 and changes nothing', async () => {
+    const designer = await as('designer');
+    const created = (await designer.post('/api/styles', newStyleBody())).json.style;
+    const first = await designer.patch(`/api/styles/${created.id}`, { version: created.version, name: 'Renamed once' });
+    expect(first.status).toBe(200);
+    expect(first.json.style.version).toBe(created.version + 1);
+    const stale = await designer.patch(`/api/styles/${created.id}`, { version: created.version, name: 'Stale rename' });
+    expect(stale.status).toBe(409);
+    const now = (await designer.get(`/api/styles/${created.id}`)).json.style;
+    expect(now.name).toBe('Renamed once');
+    expect(now.version).toBe(created.version + 1);
+  });
+
+  it('PATCH rejects unknown fields and a missing version', async () => {
+    const designer = await as('designer');
+    const s = await styleByCode('HF27-103');
+    expect((await designer.patch(`/api/styles/${s.id}`, { name: 'x y' })).status).toBe(400);
+    expect((await designer.patch(`/api/styles/${s.id}`, { version: s.version, studioId: 'x' })).status).toBe(400);
+  });
+
+  it('DELETE archives: the style disappears from lists and reads, the row is kept', async () => {
+    const designer = await as('designer');
+    const created = (await designer.post('/api/styles', newStyleBody())).json.style;
+    expect((await designer.delete(`/api/styles/${created.id}`)).status).toBe(200);
+    expect((await designer.get(`/api/styles/${created.id}`)).status).toBe(404);
+    expect((await designer.delete(`/api/styles/${created.id}`)).status).toBe(404);
+  });
+
+  it('answers 404 for an id that is not a uuid, not 500', async () => {
+    const designer = await as('designer');
+    expect((await designer.get('/api/styles/not-a-uuid')).status).toBe(400);
+  });
+
+  it('writes an audit entry for every change, listed in the history', async () => {
+    const designer = await as('designer');
+    const created = (await designer.post('/api/styles', newStyleBody())).json.style;
+    await designer.patch(`/api/styles/${created.id}`, { version: created.version, status: 'developing' });
+    const hist = await designer.get(`/api/styles/${created.id}/history`);
+    expect(hist.json.entries.map((e: { action: string }) => e.action)).toEqual(['style.update', 'style.create']);
+    expect(hist.json.entries[0].details).toEqual({ status: 'developing' });
+  });
+});
+
+describe('isolation', () => {
+  it('another studio never sees this studio\'s styles, and this one never sees theirs', async () => {
+    const other = await as('otherStudioAdmin');
+    const theirs = (await other.get('/api/styles')).json.styles.map((s: { code: string }) => s.code);
+    expect(theirs).toEqual(['OX-001']);
+    const ours = await styleByCode('HF27-101');
+    expect((await other.get(`/api/styles/${ours.id}`)).status).toBe(404);
+    expect((await other.patch(`/api/styles/${ours.id}`, { version: ours.version, name: 'hijack' })).status).toBe(404);
+    expect((await other.delete(`/api/styles/${ours.id}`)).status).toBe(404);
+    const designer = await as('designer');
+    expect((await designer.get('/api/styles')).json.styles.map((s: { code: string }) => s.code)).not.toContain('OX-001');
+  });
+
+  it('the mill sees only the styles shared with its mill; the client only its own', async () => {
+    const mill = await as('mill');
+    const millCodes = (await mill.get('/api/styles')).json.styles.map((s: { code: string }) => s.code).sort();
+    expect(millCodes).toEqual(['HF26-118', 'HF27-101', 'HF27-105']);
+    const client = await as('client');
+    const clientCodes = (await client.get('/api/styles')).json.styles.map((s: { code: string }) => s.code).sort();
+    expect(clientCodes).toEqual(['HF27-101', 'HF27-102', 'HF27-104']);
+    const notShared = await styleByCode('HF27-103');
+    expect((await mill.get(`/api/styles/${notShared.id}`)).status).toBe(404);
+    // Shares of other organisations are not disclosed to outside accounts.
+    const shared = await styleByCode('HF27-101');
+    const seen = (await mill.get(`/api/styles/${shared.id}`)).json.style.shares.map((s: { name: string }) => s.name);
+    expect(seen).toEqual(['Quellmoor Knitworks']);
+  });
+
+  it('sharing a style with the mill makes it visible to the mill, unsharing hides it again', async () => {
+    const designer = await as('designer');
+    const mill = await as('mill');
+    const orgs = (await designer.get('/api/organisations')).json.organisations;
+    const quellmoor = orgs.find((o: { name: string }) => o.name === 'Quellmoor Knitworks');
+    const created = (await designer.post('/api/styles', newStyleBody())).json.style;
+    expect((await mill.get(`/api/styles/${created.id}`)).status).toBe(404);
+    expect((await designer.post(`/api/styles/${created.id}/shares`, { organisationId: quellmoor.id })).status).toBe(201);
+    expect((await mill.get(`/api/styles/${created.id}`)).status).toBe(200);
+    expect((await designer.delete(`/api/styles/${created.id}/shares/${quellmoor.id}`)).status).toBe(200);
+    expect((await mill.get(`/api/styles/${created.id}`)).status).toBe(404);
+  });
+});
