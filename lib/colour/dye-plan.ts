@@ -40,7 +40,8 @@ export interface BathProfile {
 /**
  * Usual top temperature and length of an exhaust bath per dye class.
  * - disperse 130 °C: "a dyeing temperature of 130 °C (266 °F) is required, and a pressurized
- *   dyebath is used" (Wikipedia "Dye" article via a dye seller's page; references.md §8, verified-2nd).
+ *   dyebath is used" (an encyclopedia article on dyes, read in a secondary copy; references.md §8,
+ *   verified-2nd).
  * - acid ~98 °C at the boil, pH 4.5–6 (references.md §8, from memory).
  * - cationic at the boil, reactive 60 °C, direct 90 °C, vat 60 °C: from memory.
  * Duration classes: common practice, no published source (pressure dyeing and wash-off make a bath

@@ -29,8 +29,8 @@ const kinds = (plan: ReturnType<typeof planDyeing>) => plan.findings.map((f) => 
 describe('planDyeing, garment-dyed', () => {
   // Cross-dyed two-tone: acid dyes colour polyamide only, disperse dyes colour polyester and also
   // stain polyamide (references.md §8: "Acid dyes … applied to … nylon", disperse "main use is to
-  // dye polyester, but they can also be used to dye nylon" — Wikipedia "Dye" via a secondary page;
-  // the two-tone logic from memory).
+  // dye polyester, but they can also be used to dye nylon" — an encyclopedia article on dyes, read
+  // in a secondary copy; the two-tone logic from memory).
   it('dyes a polyamide + polyester two-tone in a disperse then an acid bath, with a stain risk', () => {
     const plan = planDyeing({
       yarns: [pa, pes],
@@ -68,7 +68,7 @@ describe('planDyeing, garment-dyed', () => {
 
   // Polyester/elastane at 130 °C: "Dyeing polyester/elastane at 130 C: Permanent drawing of
   // elastane fibre; Loss of stretch recovery power … Heavy staining of elastane fibres" (dye-maker
-  // technical note EFT/TS 181, 2000, via a secondary copy; references.md §8 [VERIFIED-2nd]).
+  // technical note, 2000, read in a secondary copy; references.md §8 [VERIFIED-2nd]).
   it('flags the heat limit and elastane staining of a polyester + elastane bath at 130 °C', () => {
     const plan = planDyeing({ yarns: [pes, el], targets: [target('body', ['pes', 'el'], grey)], route: 'garment-dyed' });
     const heat = plan.findings.find((f) => f.kind === 'heat-limit');
