@@ -21,7 +21,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'server',
-          include: ['tests/api/**/*.test.ts', 'tests/db/**/*.test.ts'],
+          include: ['tests/api/**/*.test.ts', 'tests/db/**/*.test.ts', 'tests/browser/**/*.test.ts'],
           execArgv: ['--import', 'tsx'],
           globalSetup: ['tests/setup/global-db.ts'],
           fileParallelism: false,

@@ -1,0 +1,56 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { launch, signIn } from './browser';
+import { accounts, baseUrl } from '../api/helpers';
+
+describe('styles in the browser', () => {
+  let browser: Browser;
+  beforeAll(async () => { browser = await launch(); });
+  afterAll(async () => { await browser?.close(); });
+
+  it('signed-out page views are sent to sign-in', async () => {
+    const page = await (await browser.newContext()).newPage();
+    await page.goto(`${baseUrl()}/styles`);
+    expect(new URL(page.url()).pathname).toBe('/sign-in');
+  });
+
+  it('the designer creates a style and finds it in the table', async () => {
+    const page = await signIn(browser, accounts.designer);
+    await page.getByRole('link', { name: 'New style' }).click();
+    await page.waitForURL(/\/styles\/new/);
+    const code = `BR-${Date.now().toString(36).toUpperCase()}`;
+    await page.getByLabel('Style code').fill(code);
+    await page.getByLabel('Name', { exact: true }).fill('Browser-made compression top');
+    await page.getByLabel('Season').fill('AW28');
+    // The needle count follows the cylinder: π × 15 in × 28 npi = 1319.5 → 1320 at a multiple of 4.
+    await page.getByLabel('Cylinder diameter (in)').fill('15');
+    await expect.poll(() => page.getByTestId('needle-count').textContent()).toBe('1320');
+    await page.getByRole('button', { name: 'Create style' }).click();
+    await page.waitForURL(/\/styles\/[0-9a-f-]{36}$/);
+    await expect.poll(() => page.getByRole('heading', { level: 1 }).textContent()).toContain('Browser-made compression top');
+
+    await page.goto(`${baseUrl()}/styles`);
+    await page.getByLabel('Search styles').fill(code);
+    const rows = page.locator('tbody tr');
+    await expect.poll(() => rows.count()).toBe(1);
+    expect(await rows.first().textContent()).toContain(code);
+  });
+
+  it('shows field errors beside the fields', async () => {
+    const page = await signIn(browser, accounts.designer);
+    await page.goto(`${baseUrl()}/styles/new`);
+    await page.getByRole('button', { name: 'Create style' }).click();
+    await expect.poll(() => page.getByRole('alert').allTextContents()).toEqual(
+      expect.arrayContaining([expect.stringMatching(/Style code needs/), expect.stringMatching(/Name needs/)]),
+    );
+  });
+
+  it('the mill sees only what was released to it', async () => {
+    const page = await signIn(browser, accounts.mill);
+    await expect.poll(() => page.getByRole('heading', { level: 1 }).textContent()).toBe('Released to your mill');
+    await expect.poll(() => page.locator('tbody tr').count()).toBe(3);
+    const codes = (await page.locator('tbody tr td:first-child').allTextContents()).sort();
+    expect(codes).toEqual(['HF26-118', 'HF27-101', 'HF27-105']);
+    expect(await page.getByRole('link', { name: 'New style' }).count()).toBe(0);
+  });
+});
