@@ -74,7 +74,7 @@ export function validateYarn(yarn: Yarn, tolerance = SHARE_SUM_TOLERANCE): strin
   }
   const sum = yarn.fibres.reduce((s, f) => s + f.share, 0);
   if (yarn.fibres.length > 0 && Math.abs(sum - 1) > tolerance) {
-    problems.push(`Yarn ${yarn.name}: fibre shares sum to ${sum}, not 1.`);
+    problems.push(`Yarn ${yarn.name}: fibre shares sum to ${Number(sum.toPrecision(9))}, not 1.`);
   }
   if (yarn.colour.state === 'dyeable') {
     const undyeable = yarn.fibres.filter((f) => isFibreId(f.fibre) && fibres[f.fibre].dopeDyedOnly && f.share > 0);
