@@ -13,6 +13,7 @@ import type { Camera, EditorState, StitchDensity, TextureLookup, Viewport } from
 /** Density used when a panel's base texture is not in the lookup (a fine-gauge plain jersey). */
 export const fallbackDensity: StitchDensity = { walesPerCm: 16, coursesPerCm: 22 };
 
+/** The zoom range, in screen pixels per cm of fabric. */
 export const zoomLimits = { minPxPerCm: 0.5, maxPxPerCm: 2000 } as const;
 
 /** Where one panel lands on screen under the current camera. */

@@ -92,6 +92,9 @@ function freshZoneName(panel: Panel): string {
   return `Zone ${n}`;
 }
 
+/**
+ * The editor store. Create one per open body map; see the module comment for how a view uses it.
+ */
 export class Editor {
   /** The shortcut set, bound once; the help panel lists it. */
   readonly shortcuts: readonly Shortcut[];
@@ -258,6 +261,7 @@ export class Editor {
   pointerDown(e: PointerInput): void {
     this.batch(() => {
       if (this.current.panGesture) return;
+      this.set({ notice: null });
       const button = e.button ?? 0;
       if (button === 1 || (button === 0 && this.current.spaceHeld)) {
         this.set({ panGesture: { last: e.screen, button } });
@@ -301,10 +305,10 @@ export class Editor {
   keyDown(e: KeyInput): boolean {
     if (e.textFieldFocused) return false;
     return this.batch(() => {
+      this.set({ notice: null });
       if (handlersFor(this.current.tool).keyDown(this.host, e)) return true;
       const shortcut = this.keymap.get(comboOfKey(e));
       if (!shortcut) return false;
-      this.set({ notice: null });
       shortcut.run(this);
       return true;
     });

@@ -14,6 +14,7 @@ export interface RepeatSize {
   courses: number;
 }
 
+/** Needle-grid snapping on, repeat snapping off. */
 export const defaultSnapping: Snapping = { needleGrid: true, wholeRepeats: false };
 
 /** The repeat of a texture from the lookup, or null when unknown or degenerate. */

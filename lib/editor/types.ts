@@ -75,6 +75,7 @@ export interface Selection {
   outlineVertex: OutlineVertexRef | null;
 }
 
+/** The tools, in the order a toolbar shows them. */
 export const toolIds = ['select', 'draw-zone', 'pan', 'zoom'] as const;
 export type ToolId = (typeof toolIds)[number];
 
@@ -193,7 +194,7 @@ export interface EditorState {
   /** Label of the drag in progress, if any: autosave can wait for it to end. */
   readonly gesture: string | null;
   readonly helpOpen: boolean;
-  /** The last refused action, for a status line ("Edges would cross"), cleared on the next action. */
+  /** Why the last action was refused, for a status line ("Edges would cross"); cleared on the next press or key. */
   readonly notice: string | null;
 }
 

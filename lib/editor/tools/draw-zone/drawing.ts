@@ -44,6 +44,7 @@ function finish(host: ToolHost, s: Drawing): void {
   host.setTool({ tool: 'draw-zone', state: 'idle', hover: null, hoverPanelId: null });
 }
 
+/** Handlers of the draw zone tool while points are placed. */
 export const drawDrawing: StateHandlers<Drawing> = {
   pointerMove(host, s, e) {
     const over = overFirst(host.state, s, e);

@@ -22,6 +22,7 @@ export function drawPointOn(state: EditorState, panelId: string, screen: ScreenP
   return clampPointToPanel(snapPoint(screenToStitch(layout, screen), state.snapping, repeat), panel);
 }
 
+/** Handlers of the draw zone tool before the first point. */
 export const drawIdle: StateHandlers<DrawIdle> = {
   pointerMove(host, s, e) {
     const layout = panelAtScreen(layoutOf(host.state), e.screen);

@@ -4,6 +4,7 @@ import type { StateHandlers, ToolStateOf } from '../tool';
 
 type Panning = ToolStateOf<'pan', 'panning'>;
 
+/** Handlers of the pan tool while dragging. */
 export const panPanning: StateHandlers<Panning> = {
   pointerMove(host, s, e) {
     host.setCamera(panCamera(host.state.camera, e.screen.x - s.last.x, e.screen.y - s.last.y));

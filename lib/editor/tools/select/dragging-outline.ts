@@ -7,6 +7,7 @@ import type { StateHandlers, ToolStateOf } from '../tool';
 
 type DraggingOutline = ToolStateOf<'select', 'dragging-outline'>;
 
+/** Handlers of the select tool while a cut-outline point is dragged. */
 export const selectDraggingOutline: StateHandlers<DraggingOutline> = {
   pointerMove(host, s, e) {
     const state = host.state;

@@ -7,6 +7,7 @@ import type { StateHandlers, ToolStateOf } from '../tool';
 
 type DraggingVertex = ToolStateOf<'select', 'dragging-vertex'>;
 
+/** Handlers of the select tool while a vertex is dragged. */
 export const selectDraggingVertex: StateHandlers<DraggingVertex> = {
   pointerMove(host, s, e) {
     const state = host.state;

@@ -24,6 +24,7 @@ function sameHit(a: HitTarget | null, b: HitTarget | null): boolean {
   }
 }
 
+/** Handlers of the select tool at rest. */
 export const selectIdle: StateHandlers<Idle> = {
   pointerMove(host, s, e) {
     const hover = hitTest(host.state, e.screen);

@@ -4,6 +4,7 @@ import { pastDragThreshold, zoneSelection, type StateHandlers, type ToolStateOf 
 
 type Marquee = ToolStateOf<'select', 'marquee'>;
 
+/** Handlers of the select tool while a marquee is drawn. */
 export const selectMarquee: StateHandlers<Marquee> = {
   pointerMove(host, s, e) {
     const active = s.active || pastDragThreshold(s.downAt, e.screen);

@@ -6,6 +6,7 @@ import { selectTranslating } from './translating';
 
 type PointingZone = ToolStateOf<'select', 'pointing-zone'>;
 
+/** Handlers of the select tool while pressed on a zone, before it is a drag. */
 export const selectPointingZone: StateHandlers<PointingZone> = {
   pointerMove(host, s, e) {
     if (!pastDragThreshold(s.downAt, e.screen)) return;

@@ -8,6 +8,7 @@ import type { StateHandlers, ToolStateOf } from '../tool';
 
 type Translating = ToolStateOf<'select', 'translating'>;
 
+/** Handlers of the select tool while zones are dragged. */
 export const selectTranslating: StateHandlers<Translating> = {
   pointerMove(host, s, e) {
     const state = host.state;

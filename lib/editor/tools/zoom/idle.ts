@@ -4,6 +4,7 @@ import type { StateHandlers, ToolStateOf } from '../tool';
 
 type ZoomIdle = ToolStateOf<'zoom', 'idle'>;
 
+/** Handlers of the zoom tool. */
 export const zoomIdle: StateHandlers<ZoomIdle> = {
   pointerDown(host, _s, e) {
     if ((e.button ?? 0) !== 0) return;
