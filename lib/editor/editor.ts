@@ -687,10 +687,12 @@ export class Editor {
 
   // ── history ──────────────────────────────────────────────────────────────────────────────
 
-  /** Undo the last step (a drag in progress is dropped first). */
+  /** Undo the last step; during a drag, undo only puts the drag back. */
   undo(): boolean {
     return this.batch(() => {
+      const dragged = (this.history.pending?.diffs.length ?? 0) > 0;
       this.cancelTool();
+      if (dragged) return true;
       const r = hist.undo(this.history, this.current.doc);
       if (!r) return false;
       this.history = r.history;

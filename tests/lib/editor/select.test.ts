@@ -117,6 +117,17 @@ describe('select tool', () => {
     expect(t.state.canUndo).toBe(false);
   });
 
+  it('undo during a drag puts back only the drag', () => {
+    const t = setup();
+    t.editor.moveZones(0, 2, ['b']);
+    t.pointerDown(t.at('front', 30, 50)).pointerMove(t.at('front', 50, 70));
+    t.keyDown('z', { ctrl: true });
+    expect(t.points('a')).toEqual(aStart);
+    expect(t.zone('b').polygon[0]).toEqual({ x: 100, y: 102 });
+    expect(t.state.tool).toMatchObject({ tool: 'select', state: 'idle' });
+    expect(t.state.undoLabel).toBe('Move zone');
+  });
+
   it('inserts a vertex with Alt on an edge and drags it, as one step', () => {
     const t = setup();
     t.click(t.at('front', 30, 50));
