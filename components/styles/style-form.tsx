@@ -35,7 +35,7 @@ function toForm(s: Style): FormIn {
 export function StyleForm({ style, readOnly = false }: { style?: Style; readOnly?: boolean }) {
   const router = useRouter();
   const qc = useQueryClient();
-  const orgs = useOrganisations();
+  const orgs = useOrganisations(!readOnly);
   const [serverError, setServerError] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
   const form = useForm<FormIn, unknown, StyleCreate>({
@@ -93,7 +93,12 @@ export function StyleForm({ style, readOnly = false }: { style?: Style; readOnly
     for (const p of parts) e = (e as Record<string, unknown> | undefined)?.[p];
     return (e as { message?: string } | undefined)?.message;
   };
-  const clients = (orgs.data ?? []).filter((o) => o.kind === 'client');
+  // Until the organisations load, offer the style's own client so the select shows it from the start.
+  const clients = orgs.data
+    ? orgs.data.filter((o) => o.kind === 'client')
+    : style?.clientId
+      ? [{ id: style.clientId, name: style.clientName ?? '' }]
+      : [];
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-6">

@@ -75,3 +75,12 @@ export function rectanglePolygon(widthNeedles: number, heightCourses: number): S
     { x: 0, y: heightCourses },
   ];
 }
+
+export const zoneFunctionLabels: Record<ZoneFunction, string> = {
+  compression: 'Compression',
+  ventilation: 'Ventilation',
+  support: 'Support',
+  'colour-block': 'Colour block',
+  hem: 'Hem',
+  'trim-area': 'Trim area',
+};

@@ -1,0 +1,104 @@
+import type { Knex } from 'knex';
+import { db } from './knex';
+import type { SessionUser } from './users';
+import { findStyle, type Style } from './styles';
+import type { Panel, PanelKind, StitchPolygon, Zone, ZoneFunction } from '@/lib/knit/panel';
+import type { BodyMapSave } from '@/lib/validations/body-map';
+import { conflict, HttpError, notFound } from '@/lib/api/errors';
+
+export interface BodyMap {
+  /** The style's version this map belongs to (optimistic concurrency). */
+  version: number;
+  panels: Panel[];
+  /** True when nothing is saved yet and the panels were generated from the style. */
+  generated: boolean;
+}
+
+interface PanelRow {
+  id: string; kind: PanelKind; name: string; width_needles: number; height_courses: number;
+  knitted_area: StitchPolygon; cut_outline: StitchPolygon; base_texture_id: string | null; position: number;
+}
+interface ZoneRow { id: string; panel_id: string; name: string; texture_id: string; fn: ZoneFunction; stack_order: number; polygon: StitchPolygon }
+
+/** The saved panels and zones of a style, in panel order; empty when none are saved. */
+export async function loadPanels(styleId: string, q: Knex | Knex.Transaction = db()): Promise<Panel[]> {
+  const panelRows = (await q('panels').where({ style_id: styleId }).orderBy('position')) as PanelRow[];
+  if (panelRows.length === 0) return [];
+  const zoneRows = (await q('zones')
+    .whereIn('panel_id', panelRows.map((p) => p.id))
+    .orderBy('stack_order')) as ZoneRow[];
+  const byPanel = new Map<string, Zone[]>();
+  for (const z of zoneRows) {
+    const list = byPanel.get(z.panel_id) ?? [];
+    list.push({ id: z.id, name: z.name, textureId: z.texture_id, fn: z.fn, order: z.stack_order, polygon: z.polygon });
+    byPanel.set(z.panel_id, list);
+  }
+  return panelRows.map((p) => ({
+    id: p.id, kind: p.kind, name: p.name, widthNeedles: p.width_needles, heightCourses: p.height_courses,
+    knittedArea: p.knitted_area, cutOutline: p.cut_outline, baseTextureId: p.base_texture_id ?? '',
+    zones: byPanel.get(p.id) ?? [],
+  }));
+}
+
+/** Texture ids among `ids` that are not live textures of the studio. */
+export async function unknownTextureIds(studioId: string, ids: string[], q: Knex | Knex.Transaction = db()): Promise<string[]> {
+  const unique = [...new Set(ids)];
+  if (unique.length === 0) return [];
+  const found = new Set(
+    (await q('textures').where({ studio_id: studioId }).whereNull('archived_at').whereIn('id', unique).pluck('id')) as string[],
+  );
+  return unique.filter((id) => !found.has(id));
+}
+
+/**
+ * Saves the whole map when `input.version` is the style's current version, raising it by one;
+ * otherwise 409 and nothing changes. Writes an audit entry.
+ */
+export async function saveBodyMap(user: SessionUser, styleId: string, input: BodyMapSave, q: Knex = db()): Promise<{ version: number; style: Style }> {
+  return q.transaction(async (trx) => {
+    const style = await findStyle(user, styleId, trx);
+    if (!style) throw notFound('Style not found.');
+    const textureIds = input.panels.flatMap((p) => [p.baseTextureId, ...p.zones.map((z) => z.textureId)]);
+    const unknown = await unknownTextureIds(user.studioId, textureIds, trx);
+    if (unknown.length) {
+      throw new HttpError(400, 'Some textures are not in the studio library.', { fieldErrors: { textureId: [`Unknown texture: ${unknown.join(', ')}`] } });
+    }
+    const bumped = await trx('styles')
+      .where({ id: styleId, studio_id: user.studioId, version: input.version })
+      .whereNull('archived_at')
+      .update({ version: trx.raw('version + 1'), updated_at: trx.fn.now() })
+      .returning('version');
+    if (bumped.length === 0) {
+      throw conflict('This body map was saved elsewhere after you opened it.', { currentVersion: style.version });
+    }
+    const version = (bumped[0] as { version: number }).version;
+    // Ids must not belong to another style's panels or zones.
+    const panelIds = input.panels.map((p) => p.id);
+    const zoneIds = input.panels.flatMap((p) => p.zones.map((z) => z.id));
+    const foreignPanels = await trx('panels').whereIn('id', panelIds).whereNot('style_id', styleId).count<{ count: string }[]>('* as count').first();
+    const foreignZones = zoneIds.length
+      ? await trx('zones as z').join('panels as p', 'p.id', 'z.panel_id').whereIn('z.id', zoneIds).whereNot('p.style_id', styleId).count<{ count: string }[]>('* as count').first()
+      : { count: '0' };
+    if (Number(foreignPanels?.count) > 0 || Number(foreignZones?.count) > 0) {
+      throw new HttpError(400, 'Panel or zone ids belong to another style.');
+    }
+    await trx('panels').where({ style_id: styleId }).del();
+    await trx('panels').insert(
+      input.panels.map((p, i) => ({
+        id: p.id, style_id: styleId, position: i, kind: p.kind, name: p.name, width_needles: p.widthNeedles,
+        height_courses: p.heightCourses, knitted_area: JSON.stringify(p.knittedArea), cut_outline: JSON.stringify(p.cutOutline),
+        base_texture_id: p.baseTextureId,
+      })),
+    );
+    const zoneRows = input.panels.flatMap((p) =>
+      p.zones.map((z) => ({ id: z.id, panel_id: p.id, name: z.name, texture_id: z.textureId, fn: z.fn, stack_order: z.order, polygon: JSON.stringify(z.polygon) })),
+    );
+    for (let i = 0; i < zoneRows.length; i += 500) await trx('zones').insert(zoneRows.slice(i, i + 500));
+    await trx('audit_log').insert({
+      studio_id: user.studioId, style_id: styleId, user_id: user.id, action: 'body-map.save',
+      details: JSON.stringify({ panels: input.panels.length, zones: zoneRows.length, version }),
+    });
+    const updated = await findStyle(user, styleId, trx);
+    return { version, style: updated! };
+  });
+}
