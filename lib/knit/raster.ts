@@ -7,10 +7,10 @@
  * and paired into spans. A centre lying exactly on a left or right edge is inside (closed spans), which
  * makes mirroring across the centre line keep every count.
  *
- * Each course is composed as runs before anything is written: the knitted area's spans take the base
- * texture, then every zone's spans (by stacking order, clipped to the knitted area) are painted over
- * them; the runs are then written with `TypedArray.fill`, so each cell is written once. Counts inside
- * and outside the cut outline come from intersecting the runs with the cut outline's spans.
+ * Each course starts with the knitted area's spans free. Zones are taken from the top of the stack
+ * down: each claims what is still free under its spans (so it is clipped to the knitted area and to
+ * the zones above it); what is left goes to the base texture. Every claimed piece is written once
+ * with `TypedArray.fill` and counted against the cut outline's spans on that course.
  */
 import type { Panel, StitchPoint, StitchPolygon, Zone } from './panel';
 
@@ -49,6 +49,8 @@ export interface PanelRaster {
 export interface RasterOptions {
   /** Also return `zoneCells`, the zone that drew each cell. */
   zoneMap?: boolean;
+  /** Count stitches (default true). With false, `stitches` and the totals are left empty/0. */
+  counts?: boolean;
   /** Reuse these buffers when their size matches (saves allocation on every edit). */
   reuse?: { cells?: Uint16Array; zoneCells?: Uint16Array };
 }
@@ -180,132 +182,197 @@ export function polygonSpans(polygon: readonly StitchPoint[], width: number, hei
   return { minRow, maxRow, offsets, starts, ends };
 }
 
-/** One course as runs of (texture index, zone index), double-buffered. */
-class RowRuns {
+/**
+ * The part of one course that no zone above has claimed yet: sorted, disjoint needle ranges,
+ * double-buffered. Zones are taken from the top of the stack down; each takes what is still free
+ * under its spans, so every stitch is decided once.
+ */
+class FreeSpans {
   s: Int32Array;
   e: Int32Array;
-  v: Uint16Array;
-  z: Uint16Array;
   n = 0;
   private s2: Int32Array;
   private e2: Int32Array;
-  private v2: Uint16Array;
-  private z2: Uint16Array;
   constructor(capacity: number) {
     this.s = new Int32Array(capacity);
     this.e = new Int32Array(capacity);
-    this.v = new Uint16Array(capacity);
-    this.z = new Uint16Array(capacity);
     this.s2 = new Int32Array(capacity);
     this.e2 = new Int32Array(capacity);
-    this.v2 = new Uint16Array(capacity);
-    this.z2 = new Uint16Array(capacity);
   }
-  private grow(min: number): void {
-    const cap = Math.max(min, this.s.length * 2);
-    const copy = <T extends Int32Array | Uint16Array>(a: T, make: (n: number) => T): T => {
-      const b = make(cap);
-      b.set(a);
-      return b;
-    };
-    this.s = copy(this.s, (n) => new Int32Array(n));
-    this.e = copy(this.e, (n) => new Int32Array(n));
-    this.v = copy(this.v, (n) => new Uint16Array(n));
-    this.z = copy(this.z, (n) => new Uint16Array(n));
-    this.s2 = new Int32Array(cap);
-    this.e2 = new Int32Array(cap);
-    this.v2 = new Uint16Array(cap);
-    this.z2 = new Uint16Array(cap);
-  }
-  /** Paints [a, b) with (v, z) over the existing runs only (so it stays inside the knitted area). */
-  paint(a: number, b: number, v: number, z: number): void {
-    const n = this.n;
-    if (this.s2.length < n + 2) this.grow(n + 2);
-    const s1 = this.s;
-    const e1 = this.e;
-    const v1 = this.v;
-    const z1 = this.z;
-    const s2 = this.s2;
-    const e2 = this.e2;
-    const v2 = this.v2;
-    const z2 = this.z2;
-    // Runs wholly before [a, b) are kept in place; find the first run that reaches past a.
-    let k = 0;
-    while (k < n && (e1[k] as number) <= a) k++;
-    if (k === n || (s1[k] as number) >= b) return; // nothing of the knitted area under [a, b)
-    let m = 0;
-    for (let r = 0; r < k; r++) {
-      s2[m] = s1[r] as number;
-      e2[m] = e1[r] as number;
-      v2[m] = v1[r] as number;
-      z2[m] = z1[r] as number;
-      m++;
-    }
-    for (; k < n; k++) {
-      const s = s1[k] as number;
-      const e = e1[k] as number;
-      const vk = v1[k] as number;
-      const zk = z1[k] as number;
-      if (s >= b) {
-        s2[m] = s;
-        e2[m] = e;
-        v2[m] = vk;
-        z2[m] = zk;
-        m++;
-        continue;
-      }
-      if (s < a) {
-        s2[m] = s;
-        e2[m] = a;
-        v2[m] = vk;
-        z2[m] = zk;
-        m++;
-      }
-      const ps = s > a ? s : a;
-      const pe = e < b ? e : b;
-      if (m > 0 && e2[m - 1] === ps && v2[m - 1] === v && z2[m - 1] === z) e2[m - 1] = pe;
-      else {
-        s2[m] = ps;
-        e2[m] = pe;
-        v2[m] = v;
-        z2[m] = z;
-        m++;
-      }
-      if (e > b) {
-        s2[m] = b;
-        e2[m] = e;
-        v2[m] = vk;
-        z2[m] = zk;
-        m++;
-      }
-    }
-    this.s = s2;
-    this.s2 = s1;
-    this.e = e2;
-    this.e2 = e1;
-    this.v = v2;
-    this.v2 = v1;
-    this.z = z2;
-    this.z2 = z1;
-    this.n = m;
-  }
-  /** Starts the course with the spans of `table` on `row`, all of texture index `v`, zone 0. */
-  reset(table: SpanTable, row: number, v: number): void {
+  /** Starts the course with the spans of `table` on `row`. */
+  reset(table: SpanTable, row: number): void {
     this.n = 0;
     if (row < table.minRow || row >= table.maxRow) return;
     const r = row - table.minRow;
     const lo = table.offsets[r] as number;
     const hi = table.offsets[r + 1] as number;
-    if (this.s.length < hi - lo) this.grow(hi - lo);
+    if (this.s.length < hi - lo + 2) this.grow(hi - lo + 2);
     for (let k = lo; k < hi; k++) {
-      const m = k - lo;
-      this.s[m] = table.starts[k] as number;
-      this.e[m] = table.ends[k] as number;
-      this.v[m] = v;
-      this.z[m] = 0;
+      this.s[k - lo] = table.starts[k] as number;
+      this.e[k - lo] = table.ends[k] as number;
     }
     this.n = hi - lo;
   }
+  private grow(min: number): void {
+    const cap = Math.max(min, this.s.length * 2);
+    const s = new Int32Array(cap);
+    const e = new Int32Array(cap);
+    s.set(this.s);
+    e.set(this.e);
+    this.s = s;
+    this.e = e;
+    this.s2 = new Int32Array(cap);
+    this.e2 = new Int32Array(cap);
+  }
+  /**
+   * Takes [a, b) out of the free spans; `claim.piece(start, end)` is called for each free piece
+   * under it.
+   */
+  take(a: number, b: number, claim: Claim): void {
+    const n = this.n;
+    const s = this.s;
+    const e = this.e;
+    let k = 0;
+    while (k < n && (e[k] as number) <= a) k++;
+    if (k === n || (s[k] as number) >= b) return;
+    if (this.s2.length < n + 2) this.grow(n + 2);
+    const s2 = this.s2;
+    const e2 = this.e2;
+    let m = 0;
+    for (let r = 0; r < k; r++) {
+      s2[m] = s[r] as number;
+      e2[m] = e[r] as number;
+      m++;
+    }
+    for (let r = k; r < n; r++) {
+      const rs = s[r] as number;
+      const re = e[r] as number;
+      if (rs >= b) {
+        s2[m] = rs;
+        e2[m] = re;
+        m++;
+        continue;
+      }
+      if (rs < a) {
+        s2[m] = rs;
+        e2[m] = a;
+        m++;
+      }
+      claim.piece(rs > a ? rs : a, re < b ? re : b);
+      if (re > b) {
+        s2[m] = b;
+        e2[m] = re;
+        m++;
+      }
+    }
+    this.s = s2;
+    this.e = e2;
+    this.s2 = s;
+    this.e2 = e;
+    this.n = m;
+  }
+}
+
+/** Writes and counts the pieces of one course as they are decided. */
+class Claim {
+  v = 0;
+  z = 0;
+  off = 0;
+  cutLo = 0;
+  cutHi = 0;
+  counting = true;
+  constructor(
+    readonly cells: Uint16Array,
+    readonly zoneCells: Uint16Array | undefined,
+    readonly cut: SpanTable,
+    readonly total: Float64Array,
+    readonly inside: Float64Array,
+    readonly zoneTotal: Float64Array,
+    readonly zoneInside: Float64Array,
+  ) {}
+  piece(start: number, end: number): void {
+    const v = this.v;
+    const z = this.z;
+    this.cells.fill(v, this.off + start, this.off + end);
+    if (this.zoneCells) this.zoneCells.fill(z, this.off + start, this.off + end);
+    if (!this.counting) return;
+    const len = end - start;
+    this.total[v] = (this.total[v] as number) + len;
+    this.zoneTotal[z] = (this.zoneTotal[z] as number) + len;
+    const starts = this.cut.starts;
+    const ends = this.cut.ends;
+    let inside = 0;
+    for (let c = this.cutLo; c < this.cutHi; c++) {
+      const cs = starts[c] as number;
+      if (cs >= end) break;
+      const ce = ends[c] as number;
+      const overlap = (ce < end ? ce : end) - (cs > start ? cs : start);
+      if (overlap > 0) inside += overlap;
+    }
+    if (inside > 0) {
+      this.inside[v] = (this.inside[v] as number) + inside;
+      this.zoneInside[z] = (this.zoneInside[z] as number) + inside;
+    }
+  }
+}
+
+interface CourseJob {
+  width: number;
+  cells: Uint16Array;
+  zoneCells: Uint16Array | undefined;
+  knittedSpans: SpanTable;
+  cutSpans: SpanTable;
+  zoneSpans: SpanTable[];
+  drawIndex: Int32Array;
+  zoneTexture: Uint16Array;
+  free: FreeSpans;
+  claim: Claim;
+}
+
+/** Decides, writes and counts one course of the raster. */
+function drawCourse(job: CourseJob, row: number): void {
+  const { width, cells, zoneCells, knittedSpans, cutSpans, zoneSpans, drawIndex, zoneTexture, free, claim } = job;
+  const off = row * width;
+  claim.off = off;
+  if (row >= cutSpans.minRow && row < cutSpans.maxRow) {
+    claim.cutLo = cutSpans.offsets[row - cutSpans.minRow] as number;
+    claim.cutHi = cutSpans.offsets[row - cutSpans.minRow + 1] as number;
+  } else {
+    claim.cutLo = 0;
+    claim.cutHi = 0;
+  }
+  // Not knitted: the gaps between the knitted area's spans are 0.
+  free.reset(knittedSpans, row);
+  let x = 0;
+  for (let k = 0; k < free.n; k++) {
+    const s = free.s[k] as number;
+    if (s > x) {
+      cells.fill(0, off + x, off + s);
+      zoneCells?.fill(0, off + x, off + s);
+    }
+    x = free.e[k] as number;
+  }
+  if (x < width) {
+    cells.fill(0, off + x, off + width);
+    zoneCells?.fill(0, off + x, off + width);
+  }
+  // Zones from the top of the stack down, each taking what is still free under it.
+  for (let d = zoneSpans.length - 1; d >= 0 && free.n > 0; d--) {
+    const t = zoneSpans[d] as SpanTable;
+    if (row < t.minRow || row >= t.maxRow) continue;
+    const r = row - t.minRow;
+    const hi = t.offsets[r + 1] as number;
+    const k = drawIndex[d] as number;
+    claim.v = zoneTexture[k] as number;
+    claim.z = k + 1;
+    for (let sp = t.offsets[r] as number; sp < hi && free.n > 0; sp++) {
+      free.take(t.starts[sp] as number, t.ends[sp] as number, claim);
+    }
+  }
+  // What is left is the base texture.
+  claim.v = 1;
+  claim.z = 0;
+  for (let k = 0; k < free.n; k++) claim.piece(free.s[k] as number, free.e[k] as number);
 }
 
 function assertDimension(value: number, what: string): void {
@@ -356,76 +423,24 @@ export function rasterizePanel(panel: Panel, opts: RasterOptions = {}): PanelRas
   const zoneSpans = drawOrder.map(({ zone }) => polygonSpans(zone.polygon, width, height));
   const drawIndex = Int32Array.from(drawOrder, (d) => d.k);
 
-  const runs = new RowRuns(64);
   const inside = new Float64Array(legend.length);
   const total = new Float64Array(legend.length);
   const zoneInside = new Float64Array(panel.zones.length + 1);
   const zoneTotal = new Float64Array(panel.zones.length + 1);
+  const counting = opts.counts !== false;
+  const free = new FreeSpans(64);
+  const claim = new Claim(cells, zoneCells, cutSpans, total, inside, zoneTotal, zoneInside);
+  claim.counting = counting;
 
-  for (let row = 0; row < height; row++) {
-    const off = row * width;
-    runs.reset(knittedSpans, row, 1);
-    if (runs.n > 0) {
-      for (let d = 0; d < zoneSpans.length; d++) {
-        const t = zoneSpans[d] as SpanTable;
-        if (row < t.minRow || row >= t.maxRow) continue;
-        const r = row - t.minRow;
-        const hi = t.offsets[r + 1] as number;
-        const k = drawIndex[d] as number;
-        const v = zoneTexture[k] as number;
-        for (let s = t.offsets[r] as number; s < hi; s++) runs.paint(t.starts[s] as number, t.ends[s] as number, v, k + 1);
-      }
-    }
-    // Write the course: gaps (not knitted) as 0, runs as their texture index.
-    let x = 0;
-    for (let r = 0; r < runs.n; r++) {
-      const s = runs.s[r] as number;
-      const e = runs.e[r] as number;
-      if (s > x) {
-        cells.fill(0, off + x, off + s);
-        zoneCells?.fill(0, off + x, off + s);
-      }
-      cells.fill(runs.v[r] as number, off + s, off + e);
-      zoneCells?.fill(runs.z[r] as number, off + s, off + e);
-      x = e;
-    }
-    if (x < width) {
-      cells.fill(0, off + x, off + width);
-      zoneCells?.fill(0, off + x, off + width);
-    }
-    // Count: runs against the cut outline's spans (both sorted, disjoint).
-    if (runs.n === 0) continue;
-    let c = 0;
-    let nc = 0;
-    if (row >= cutSpans.minRow && row < cutSpans.maxRow) {
-      c = cutSpans.offsets[row - cutSpans.minRow] as number;
-      nc = cutSpans.offsets[row - cutSpans.minRow + 1] as number;
-    }
-    for (let r = 0; r < runs.n; r++) {
-      const s = runs.s[r] as number;
-      const e = runs.e[r] as number;
-      const v = runs.v[r] as number;
-      const z = runs.z[r] as number;
-      total[v] = (total[v] as number) + (e - s);
-      zoneTotal[z] = (zoneTotal[z] as number) + (e - s);
-      while (c < nc && (cutSpans.ends[c] as number) <= s) c++;
-      for (let c2 = c; c2 < nc; c2++) {
-        const cs = cutSpans.starts[c2] as number;
-        if (cs >= e) break;
-        const ce = cutSpans.ends[c2] as number;
-        const overlap = Math.min(e, ce) - Math.max(s, cs);
-        if (overlap > 0) {
-          inside[v] = (inside[v] as number) + overlap;
-          zoneInside[z] = (zoneInside[z] as number) + overlap;
-        }
-      }
-    }
-  }
+  const job: CourseJob = { width, cells, zoneCells, knittedSpans, cutSpans, zoneSpans, drawIndex, zoneTexture, free, claim };
+  // One call per course: a small function the engine optimises once, instead of a long loop in a
+  // function that is entered once per panel.
+  for (let row = 0; row < height; row++) drawCourse(job, row);
 
   const stitches: Record<string, StitchCount> = {};
   let knitted = 0;
   let insideTotal = 0;
-  for (let k = 1; k < legend.length; k++) {
+  for (let k = 1; k < legend.length && counting; k++) {
     const t = total[k] as number;
     const i = inside[k] as number;
     stitches[legend[k] as string] = { inside: i, outside: t - i };
