@@ -305,6 +305,7 @@ export type FibreId = keyof typeof fibres;
 
 export const fibreIds = Object.keys(fibres) as FibreId[];
 
+/** True if `id` names a fibre of the registry. */
 export function isFibreId(id: string): id is FibreId {
   return Object.prototype.hasOwnProperty.call(fibres, id);
 }

@@ -158,14 +158,14 @@ export function gramsPerStitch(texture: Texture, yarns: YarnLookup, gauge: numbe
   return out;
 }
 
-/** Stitches per cm² = wales/cm × courses/cm. Source: Texcoms handbook p.147 (j). */
+/** Stitches per cm² = wales/cm × courses/cm. Source: textile technical handbook (2023) p.147 (j). */
 export function stitchesPerCm2(texture: Texture): number {
   return texture.density.walesPerCm * texture.density.coursesPerCm;
 }
 
 /**
  * Areal density, g/m²: stitches per cm² × (Σ over the repeat of loop length (mm) × tex) / cells / 100.
- * Source: product design formula 4; Texcoms Textile Technical Handbook (2023) p.147 (c):
+ * Source: product design formula 4; Textile Technical Handbook (2023), "Knitting – General formulae", p.147 (c):
  * "Stitch density (loops/sq.cm) x stitch length(mm) x Count (tex) / 100".
  */
 export function arealDensity(texture: Texture, yarns: YarnLookup, gauge: number): number {
@@ -175,14 +175,14 @@ export function arealDensity(texture: Texture, yarns: YarnLookup, gauge: number)
   return gramsPerCell * stitchesPerCm2(texture) * 10_000;
 }
 
-/** Areal density of plain fabric: S (loops/cm²) × l (mm) × tex / 100, g/m². Texcoms p.147 (c). */
+/** Areal density of plain fabric: S (loops/cm²) × l (mm) × tex / 100, g/m². Source: textile technical handbook (2023) p.147 (c). */
 export function gsmFromStitchDensity(stitchesPerCm2: number, loopMm: number, tex: number): number {
   return (stitchesPerCm2 * loopMm * tex) / 100;
 }
 
 /**
  * Tightness (cover) factor K = √tex / l, with l the loop length in mm (tex^½ mm⁻¹).
- * Source: Texcoms handbook p.147 (g): "Cover factor = √linear density (tex) / l".
+ * Source: textile technical handbook (2023) p.147 (g): "Cover factor = √linear density (tex) / l".
  */
 export function tightnessFactor(tex: number, loopMm: number): number {
   if (!(tex > 0) || !(loopMm > 0)) throw new RangeError('tex and loop length must be positive');

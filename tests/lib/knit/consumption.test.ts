@@ -31,7 +31,7 @@ const jersey = (id: string, feeder: Texture['feeders'][number], loopMm: number, 
 describe('garmentConsumption', () => {
   it('reproduces the references.md §7(f) example: 0.85 m² kept at 160 g/m², 15 % cut away, 5 % process loss → 168.4 g', () => {
     // 1000 × 1000 stitches at 10 × 10 per cm = 100 cm × 100 cm = 1 m² knitted.
-    // 2 mm loops of 80 tex (800 dtex): 100 loops/cm² × 2 × 80 / 100 = 160 g/m² (Texcoms p.147 (c)).
+    // 2 mm loops of 80 tex (800 dtex): 100 loops/cm² × 2 × 80 / 100 = 160 g/m² (handbook p.147 (c)).
     // Cut outline: 1000 × 850 stitches = 0.85 m² kept; the other 15 % is cut away (marker waste).
     const yarns = [yarn('y', 800, 'cotton')];
     const t = jersey('jersey', { ground: 'y' }, 2);

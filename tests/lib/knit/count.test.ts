@@ -44,7 +44,7 @@ describe('convertCount: published factors and worked examples', () => {
     expect((1.5 * NE_TEX_FACTOR) / 1000).toBeCloseTo(0.885812, 6);
   });
 
-  it('Ne × denier ≈ 5315 (textilelearner "Denier x Ne 5315", secondary source)', () => {
+  it('Ne × denier ≈ 5315 ("Denier x Ne 5315", a secondary web source in references.md §1)', () => {
     expect(Math.round(convertCount(1, 'Ne', 'den'))).toBe(5315);
     // Exact: 9 × 590.5412 = 5314.871 (references.md §1, computed).
     expect(convertCount(1, 'Ne', 'den')).toBeCloseTo(5314.871, 3);

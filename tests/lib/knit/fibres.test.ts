@@ -122,7 +122,7 @@ describe('EU agreed allowances: Regulation (EU) No 1007/2011 Annex IX (original 
 });
 
 describe('commercial moisture regain (ASTM D1909)', () => {
-  it('cotton 8.5 % and wool 13.6 % (ASTM D1909-13 via Springer Bioresour. Bioprocess. 2020 Table 10, verified-2nd)', () => {
+  it('cotton 8.5 % and wool 13.6 % (ASTM D1909-13 as cited in Bioresour. Bioprocess. (2020) Table 10, verified-2nd)', () => {
     expect(fibres.cotton.regainPct).toBe(8.5);
     expect(fibres.wool.regainPct).toBe(13.6);
     expect(fibres.cotton.regainStatus).toBe('verified-2nd');
@@ -165,7 +165,7 @@ describe('dye classes (product design §8; references.md §8)', () => {
 });
 
 describe('temperature limits', () => {
-  it('elastane has a wet limit below the 130 °C polyester bath that harms it (BASF EFT/TS 181, 2000, verified-2nd)', () => {
+  it('elastane has a wet limit below the 130 °C polyester bath that harms it (dyeing technical note, 2000, in references.md §8; verified-2nd)', () => {
     expect(fibres.elastane.wetLimitC).toBeDefined();
     expect(fibres.elastane.wetLimitC as number).toBeLessThan(130);
     // Polyamide's acid bath at the boil (about 98–100 °C, from memory) stays within it.

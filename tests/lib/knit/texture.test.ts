@@ -51,14 +51,14 @@ function texture(rows: string[], partial: Partial<Texture> = {}): Texture {
 }
 
 describe('areal density (product design formula 4)', () => {
-  it('plain jersey 18 courses/cm × 13 wales/cm, l = 2.8 mm, Ne 30 → 128.97 g/m² (Texcoms handbook p.147 (c); references.md §7(a), computed)', () => {
+  it('plain jersey 18 courses/cm × 13 wales/cm, l = 2.8 mm, Ne 30 → 128.97 g/m² (textile technical handbook (2023) p.147 (c); references.md §7(a), computed)', () => {
     const jersey = texture(['K']);
     // 234 loops/cm² × 2.8 mm × 19.6847 tex / 100 = 128.97 g/m².
     expect(arealDensity(jersey, yarns, 28)).toBeCloseTo(128.97, 2);
     expect(gsmFromStitchDensity(234, 2.8, 19.6847)).toBeCloseTo(128.97, 2);
   });
 
-  it("matches the handbook's Ne form (b): WPI × CPI × l × 0.9155 / Ne = 129.00 (Texcoms p.147 (b); rounded constant)", () => {
+  it("matches the handbook's Ne form (b): WPI × CPI × l × 0.9155 / Ne = 129.00 (handbook p.147 (b); rounded constant)", () => {
     const jersey = texture(['K']);
     const wpi = 13 * 2.54;
     const cpi = 18 * 2.54;
@@ -163,7 +163,7 @@ describe('yarn per repeat (product design §3)', () => {
   });
 });
 
-describe('tightness factor K = √tex / l (Texcoms p.147 (g), l in mm)', () => {
+describe('tightness factor K = √tex / l (handbook p.147 (g), l in mm)', () => {
   it('Ne 30, l = 2.8 mm → 1.585 tex^½ mm⁻¹ (references.md §7(c), computed)', () => {
     expect(tightnessFactor(19.6847, 2.8)).toBeCloseTo(1.585, 3);
     expect(textureTightness(texture(['K']), yarns)).toBeCloseTo(1.585, 3);
