@@ -436,7 +436,7 @@ const textureFields = {
   feeders: z.array(feederSchema, { error: 'Each course needs a feeder' }).min(1, 'Each course needs a feeder'),
   density: z.object({ walesPerCm: num('Wales per cm', 1, 80), coursesPerCm: num('Courses per cm', 1, 100) }),
   loopMm: z.object({ knit: num('Knit loop length', 0.3, 20), tuck: num('Tuck loop length', 0.2, 20) }),
-  forceExtension: z.preprocess((v) => (v === undefined || (Array.isArray(v) && v.length === 0) ? null : v), forceExtensionSchema.nullable()),
+  forceExtension: z.preprocess((v) => (Array.isArray(v) && v.length === 0 ? null : v), forceExtensionSchema.nullable()).optional(),
   notes: z.string().max(4000, 'Notes are at most 4000 characters').default(''),
 };
 
@@ -485,7 +485,7 @@ export const textureInputSchema = z
       feeders,
       density: { ...t.density },
       loopMm: { ...t.loopMm },
-      forceExtension: t.forceExtension,
+      forceExtension: t.forceExtension ?? null,
       notes: t.notes,
     };
     for (const problem of validateTexture(toDomainTexture('new', out))) ctx.addIssue({ code: 'custom', path: ['repeat'], message: problem });

@@ -33,6 +33,43 @@ async function freshStyle() {
   return res.json.style as { id: string; version: number };
 }
 
+// The studio library (yarns, textures) and a style's textures and trims.
+let libSeq = 0;
+const libName = (what: string) => `Matrix ${what} ${Date.now().toString(36)}-${(libSeq++).toString(36)}`;
+
+async function freshYarn() {
+  const designer = await as('designer');
+  const res = await designer.post('/api/library/yarns', {
+    name: libName('yarn'), count: { value: 78, unit: 'dtex' }, makeUp: { kind: 'single', fibre: 'polyamide' }, colour: { state: 'dyeable' },
+  });
+  return res.json.yarn as { id: string; version: number };
+}
+
+async function textureBody() {
+  const designer = await as('designer');
+  const yarns = (await designer.get('/api/library/yarns')).json.yarns as { id: string }[];
+  const ground = yarns[0]!.id;
+  return {
+    name: libName('texture'), family: 'jersey', repeat: { needles: 2, courses: 2, cells: ['kk', 'kt'] },
+    feeders: [{ ground }, { ground }], density: { walesPerCm: 20, coursesPerCm: 28 }, loopMm: { knit: 2.4, tuck: 1.8 },
+  };
+}
+
+async function freshTexture() {
+  const designer = await as('designer');
+  const res = await designer.post('/api/library/textures', await textureBody());
+  return res.json.texture as { id: string; version: number };
+}
+
+async function freshTrim() {
+  const designer = await as('designer');
+  const s = await freshStyle();
+  const res = await designer.post(`/api/styles/${s.id}/trims`, {
+    panelKind: 'front', kind: 'woven-label', method: 'sewn', box: { x: 10, y: 10, width: 20, height: 10 },
+  });
+  return { styleId: s.id, trim: res.json.trim as { id: string; version: number } };
+}
+
 export const matrix: Record<string, Entry> = {
   'GET /api/health': {
     expect: { anon: 200, admin: 200, designer: 200, 'colour-lead': 200, client: 200, mill: 200 },
@@ -93,6 +130,65 @@ export const matrix: Record<string, Entry> = {
   'PATCH /api/members/[id]': {
     expect: adminOnly(200),
     run: (c, ctx) => c.patch(`/api/members/${ctx.throwawayMemberId}`, { name: 'Matrix Renamed' }),
+  },
+  'GET /api/library/yarns': { expect: staffOnly(200), run: (c) => c.get('/api/library/yarns') },
+  'POST /api/library/yarns': {
+    expect: editors(201),
+    run: (c) =>
+      c.post('/api/library/yarns', {
+        name: libName('yarn'), count: '44 dtex', makeUp: { kind: 'single', fibre: 'polyamide' }, colour: { state: 'dyeable' },
+      }),
+  },
+  'GET /api/library/yarns/[id]': { expect: staffOnly(200), run: async (c) => c.get(`/api/library/yarns/${(await freshYarn()).id}`) },
+  'PATCH /api/library/yarns/[id]': {
+    expect: editors(200),
+    run: async (c) => {
+      const y = await freshYarn();
+      return c.patch(`/api/library/yarns/${y.id}`, { version: y.version, supplierRef: 'MX-1' });
+    },
+  },
+  'DELETE /api/library/yarns/[id]': { expect: editors(200), run: async (c) => c.delete(`/api/library/yarns/${(await freshYarn()).id}`) },
+  'GET /api/library/textures': { expect: staffOnly(200), run: (c) => c.get('/api/library/textures') },
+  'POST /api/library/textures': { expect: editors(201), run: async (c) => c.post('/api/library/textures', await textureBody()) },
+  'GET /api/library/textures/[id]': { expect: staffOnly(200), run: async (c) => c.get(`/api/library/textures/${(await freshTexture()).id}`) },
+  'PATCH /api/library/textures/[id]': {
+    expect: editors(200),
+    run: async (c) => {
+      const t = await freshTexture();
+      return c.patch(`/api/library/textures/${t.id}`, { version: t.version, notes: 'Matrix note' });
+    },
+  },
+  'DELETE /api/library/textures/[id]': { expect: editors(200), run: async (c) => c.delete(`/api/library/textures/${(await freshTexture()).id}`) },
+  // Everyone who sees the style reads its textures and trims: mill and client included for shared styles.
+  'GET /api/styles/[id]/textures': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/textures`) },
+  'PUT /api/styles/[id]/textures': {
+    expect: editors(200),
+    run: async (c) => {
+      const s = await freshStyle();
+      return c.put(`/api/styles/${s.id}/textures`, { version: s.version, textureIds: [(await freshTexture()).id] });
+    },
+  },
+  'GET /api/styles/[id]/trims': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/trims`) },
+  'POST /api/styles/[id]/trims': {
+    expect: editors(201),
+    run: async (c) =>
+      c.post(`/api/styles/${(await freshStyle()).id}/trims`, {
+        panelKind: 'back', kind: 'care-label', method: 'sewn', box: { x: 1, y: 1, width: 30, height: 20 },
+      }),
+  },
+  'PATCH /api/styles/[id]/trims/[trimId]': {
+    expect: editors(200),
+    run: async (c) => {
+      const { styleId, trim } = await freshTrim();
+      return c.patch(`/api/styles/${styleId}/trims/${trim.id}`, { version: trim.version, name: 'Matrix label' });
+    },
+  },
+  'DELETE /api/styles/[id]/trims/[trimId]': {
+    expect: editors(200),
+    run: async (c) => {
+      const { styleId, trim } = await freshTrim();
+      return c.delete(`/api/styles/${styleId}/trims/${trim.id}`);
+    },
   },
 };
 
