@@ -388,7 +388,9 @@ function stainFindings(bath: DyeBath, exposed: readonly Yarn[], findings: DyeFin
     instead:
       bath.dyeClass === 'disperse'
         ? 'Clear the disperse dye off after dyeing (reduction clearing) and choose low-staining disperse dyes.'
-        : `Choose ${bath.dyeClass} dyes of low staining and clear after dyeing.`,
+        : bath.dyeClass === 'cationic'
+          ? 'Add a reserving agent for the polyamide to the cationic bath, choose cationic dyes that stain polyamide little, and clear after dyeing.'
+          : `Choose ${bath.dyeClass} dyes of low staining and clear after dyeing.`,
   });
 }
 

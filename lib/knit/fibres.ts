@@ -78,7 +78,9 @@ export const fibres = {
     kind: 'synthetic',
     natural: false,
     dyeClasses: ['acid'],
-    stainedBy: ['disperse'],
+    // Disperse: references.md §8 (verified-2nd). Cationic: from memory; the carboxyl end groups of
+    // polyamide take up some basic dye, a stain of poor fastness in a cationic bath.
+    stainedBy: ['disperse', 'cationic'],
     takesLittleDye: false,
     dopeDyedOnly: false,
     regainPct: 4.5, // memory

@@ -52,6 +52,31 @@ describe('planDyeing, garment-dyed', () => {
     expect(stain?.instead).toMatch(/reduction clearing/);
   });
 
+  // Polyamide + cationic-dyeable polyester two-tone: cationic dyes colour the modified polyester,
+  // acid dyes the polyamide (references.md §8: cationic for CDP from memory, acid for nylon
+  // verified-2nd); cationic dyes also stain polyamide (from memory: its carboxyl end groups take up
+  // basic dye). Both baths stay at or below the boil, so plated elastane is not overheated.
+  it('dyes a polyamide + cationic polyester two-tone in a cationic then an acid bath, with a stain on the polyamide', () => {
+    const cd = yarn('cd', [['polyester-cd', 1]]);
+    const plan = planDyeing({
+      yarns: [pa, cd, el],
+      targets: [target('ground', ['pa'], navy), target('accent', ['cd'], grey)],
+      route: 'garment-dyed',
+    });
+    expect(plan.baths.map((b) => [b.order, b.dyeClass, b.targetId, b.temperatureC])).toEqual([
+      [1, 'cationic', 'accent', 100],
+      [2, 'acid', 'ground', 98],
+    ]);
+    expect(kinds(plan)).not.toContain('clash');
+    expect(kinds(plan)).not.toContain('heat-limit');
+    const stain = plan.findings.filter((f) => f.kind === 'stain-risk');
+    expect(stain).toHaveLength(1);
+    expect(stain[0]?.yarnIds).toEqual(['pa']);
+    expect(stain[0]?.message).toMatch(/cationic bath stains the polyamide/);
+    expect(stain[0]?.instead).toMatch(/reserving agent/);
+    expect(plan.findings.find((f) => f.kind === 'grin-through')?.yarnIds).toEqual(['el']);
+  });
+
   // Polyamide/elastane in one colour: acid bath at about 98 °C (from memory, references.md §8) is
   // below elastane's wet limit in the fibre registry, so no heat finding; bare elastane takes little
   // dye (product design §8) and grins through.
