@@ -70,6 +70,48 @@ async function freshTrim() {
   return { styleId: s.id, trim: res.json.trim as { id: string; version: number } };
 }
 
+// Colour: the studio's colour standards, a style's colourways and lab dips.
+const colourEditors = (ok: number) => ({ anon: 401, admin: ok, designer: 403, 'colour-lead': ok, client: 403, mill: 403 });
+const labDipSubmitters = (ok: number) => ({ anon: 401, admin: ok, designer: 403, 'colour-lead': 403, client: 403, mill: ok });
+let colourSeq = 0;
+const colourName = (what: string) => `Matrix ${what} ${Date.now().toString(36)}-${(colourSeq++).toString(36)}`;
+
+async function freshStandard() {
+  const lead = await as('colour-lead');
+  const res = await lead.post('/api/library/colour-standards', { name: colourName('standard'), lab: { L: 40, a: 10, b: -20 }, source: 'digital' });
+  return res.json.standard as { id: string; version: number };
+}
+
+async function freshColourway() {
+  const lead = await as('colour-lead');
+  const s = await freshStyle();
+  const res = await lead.post(`/api/styles/${s.id}/colourways`, { name: colourName('colourway') });
+  return { styleId: s.id, colourway: res.json.colourway as { id: string; version: number } };
+}
+
+let matrixTarget: Promise<{ styleId: string; targetId: string }> | undefined;
+/** A colourway with one target on the shared style (which the mill sees), made once per run. */
+function sharedTarget(styleId: string) {
+  matrixTarget ??= (async () => {
+    const lead = await as('colour-lead');
+    const { yarns } = (await lead.get(`/api/styles/${styleId}/colourways`)).json as { yarns: { id: string; colour: { state: string }; fibres: { fibre: string }[] }[] };
+    const pa = yarns.find((y) => y.colour.state === 'dyeable' && y.fibres.every((f) => f.fibre === 'polyamide'))!;
+    const res = await lead.post(`/api/styles/${styleId}/colourways`, {
+      name: colourName('colourway'),
+      targets: [{ name: 'Ground', yarnIds: [pa.id], route: 'garment-dyed', colour: { source: 'lab', lab: { L: 30, a: 5, b: -20 } } }],
+    });
+    return { styleId, targetId: res.json.colourway.targets[0].id as string };
+  })();
+  return matrixTarget;
+}
+
+async function freshLabDip(styleId: string) {
+  const mill = await as('mill');
+  const { targetId } = await sharedTarget(styleId);
+  const res = await mill.post(`/api/styles/${styleId}/lab-dips`, { targetId, measured: { L: 30.4, a: 5.2, b: -19.6 } });
+  return res.json.labDip as { id: string; version: number };
+}
+
 export const matrix: Record<string, Entry> = {
   'GET /api/health': {
     expect: { anon: 200, admin: 200, designer: 200, 'colour-lead': 200, client: 200, mill: 200 },
@@ -188,6 +230,79 @@ export const matrix: Record<string, Entry> = {
     run: async (c) => {
       const { styleId, trim } = await freshTrim();
       return c.delete(`/api/styles/${styleId}/trims/${trim.id}`);
+    },
+  },
+  'GET /api/library/colour-standards': { expect: staffOnly(200), run: (c) => c.get('/api/library/colour-standards') },
+  'POST /api/library/colour-standards': {
+    expect: colourEditors(201),
+    run: (c) => c.post('/api/library/colour-standards', { name: colourName('standard'), lab: { L: 50, a: 0, b: 0 }, source: 'measured' }),
+  },
+  'GET /api/library/colour-standards/[id]': {
+    expect: staffOnly(200),
+    run: async (c) => c.get(`/api/library/colour-standards/${(await freshStandard()).id}`),
+  },
+  'PATCH /api/library/colour-standards/[id]': {
+    expect: colourEditors(200),
+    run: async (c) => {
+      const s = await freshStandard();
+      return c.patch(`/api/library/colour-standards/${s.id}`, { version: s.version, notes: 'Matrix note' });
+    },
+  },
+  'DELETE /api/library/colour-standards/[id]': {
+    expect: colourEditors(200),
+    run: async (c) => c.delete(`/api/library/colour-standards/${(await freshStandard()).id}`),
+  },
+  // Everyone who sees the style reads its colourways and lab dips (a client only the approved colours).
+  'GET /api/styles/[id]/colourways': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/colourways`) },
+  'POST /api/styles/[id]/colourways': {
+    expect: colourEditors(201),
+    run: async (c) => c.post(`/api/styles/${(await freshStyle()).id}/colourways`, { name: colourName('colourway') }),
+  },
+  'GET /api/styles/[id]/colourways/[colourwayId]': {
+    // The seeded two-tone has an approved dip, so the client sees it too.
+    expect: everyone(200),
+    run: async (c, ctx) => {
+      const list = (await (await as('admin')).get(`/api/styles/${ctx.sharedStyleId}/colourways`)).json;
+      const cw = list.colourways.find((x: { name: string }) => x.name === 'Navy / Lichen');
+      return c.get(`/api/styles/${ctx.sharedStyleId}/colourways/${cw.id}`);
+    },
+  },
+  'PATCH /api/styles/[id]/colourways/[colourwayId]': {
+    expect: colourEditors(200),
+    run: async (c) => {
+      const { styleId, colourway } = await freshColourway();
+      return c.patch(`/api/styles/${styleId}/colourways/${colourway.id}`, { version: colourway.version, notes: 'Matrix note' });
+    },
+  },
+  'DELETE /api/styles/[id]/colourways/[colourwayId]': {
+    expect: colourEditors(200),
+    run: async (c) => {
+      const { styleId, colourway } = await freshColourway();
+      return c.delete(`/api/styles/${styleId}/colourways/${colourway.id}`);
+    },
+  },
+  'GET /api/styles/[id]/lab-dips': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/lab-dips`) },
+  'POST /api/styles/[id]/lab-dips': {
+    expect: labDipSubmitters(201),
+    run: async (c, ctx) => {
+      const { targetId } = await sharedTarget(ctx.sharedStyleId);
+      return c.post(`/api/styles/${ctx.sharedStyleId}/lab-dips`, { targetId, measured: { L: 30.2, a: 5.1, b: -19.8 }, comment: 'Matrix dip' });
+    },
+  },
+  'GET /api/styles/[id]/lab-dips/[labDipId]': {
+    // The seeded approved dip: the mill sent it, the client may read approved dips.
+    expect: everyone(200),
+    run: async (c, ctx) => {
+      const dips = (await (await as('admin')).get(`/api/styles/${ctx.sharedStyleId}/lab-dips`)).json.labDips;
+      const approved = dips.find((d: { status: string }) => d.status === 'approved');
+      return c.get(`/api/styles/${ctx.sharedStyleId}/lab-dips/${approved.id}`);
+    },
+  },
+  'PATCH /api/styles/[id]/lab-dips/[labDipId]': {
+    expect: { anon: 401, admin: 200, designer: 403, 'colour-lead': 200, client: 403, mill: 403 },
+    run: async (c, ctx) => {
+      const dip = await freshLabDip(ctx.sharedStyleId);
+      return c.patch(`/api/styles/${ctx.sharedStyleId}/lab-dips/${dip.id}`, { version: dip.version, decision: 'approved' });
     },
   },
 };
