@@ -52,7 +52,7 @@ export interface TubePointNeedles {
 
 export interface SeamlessSizeNeedles {
   size: string;
-  /** The cylinder recommended for the size (nearest for its widest body tube); null without a value there. */
+  /** The cylinder recommended for the size (nearest for its chest, or for a leg its thigh); null without a value there. */
   cylinder: CylinderOption | null;
   /** The point that chose it. */
   decidedBy: PointKey;
@@ -90,8 +90,8 @@ function lengthCourses(garment: FitGarment, values: SpecValues, size: string, de
 }
 
 /**
- * Seamless: for each size, the cylinder nearest its widest body tube (chest for tops, hip for
- * bottoms) among the available diameters at the machine's gauge and needle multiple, then for
+ * Seamless: for each size, the cylinder nearest its deciding tube (the chest of a top, the thigh
+ * of a leg) among the available diameters at the machine's gauge and needle multiple, then for
  * every tube point the needles across the half-width, the nearest cylinder on its own, and the
  * density that reaches the target on the size's cylinder.
  */
@@ -203,4 +203,11 @@ export function compressionBySize(input: {
     }
     return out;
   });
+}
+
+/** The texture whose relaxed wales per cm is nearest the density a point needs (a structure change instead of a setting change). */
+export function nearestDensity<T extends { walesPerCm: number }>(textures: readonly T[], walesPerCm: number): T | null {
+  let best: T | null = null;
+  for (const t of textures) if (!best || Math.abs(t.walesPerCm - walesPerCm) < Math.abs(best.walesPerCm - walesPerCm)) best = t;
+  return best;
 }

@@ -79,15 +79,19 @@ export const girthLabels: Record<GirthKey, string> = { chest: 'Chest', waist: 'W
 
 /**
  * The half-widths a seamless tube sets directly (its relaxed width comes from the cylinder's
- * needles and the texture's density); lengths come from courses. Legs are tubes of their own.
+ * needles and the texture's density); lengths come from courses. Tops are one body tube; bottoms
+ * are knitted leg by leg, each leg a tube, and joined at the rise, so their waist and hip are not
+ * tubes of their own. Common practice, no published source.
  */
 export function tubePoints(garment: FitGarment): PointKey[] {
-  return garmentPoints[garment].filter((k) => pointsOfMeasure[k].kind === 'half-width');
+  const legs: PointKey[] = ['thigh-half', 'knee-half', 'calf-half', 'ankle-half'];
+  const bottoms = garment === 'legging' || garment === 'shorts';
+  return garmentPoints[garment].filter((k) => pointsOfMeasure[k].kind === 'half-width' && (!bottoms || legs.includes(k)));
 }
 
-/** The tube point that decides the cylinder of a size: the widest body tube. */
+/** The tube point that decides the cylinder of a size: the chest of a top, the thigh of a leg. */
 export function primaryTubePoint(garment: FitGarment): PointKey {
-  return garment === 'legging' || garment === 'shorts' ? 'hip-half' : 'chest-half';
+  return garment === 'legging' || garment === 'shorts' ? 'thigh-half' : 'chest-half';
 }
 
 /**

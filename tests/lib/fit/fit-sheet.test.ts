@@ -102,9 +102,10 @@ describe('points of measure and the default spec', () => {
     expect(spec.cylinderDiametersIn).toContain(13);
   });
 
-  it('a top tube is set at chest, waist and bottom; a legging also at its legs', () => {
+  it('a top tube is set at chest, waist and bottom; a legging at its leg tubes', () => {
     expect(tubePoints('long-sleeve-top')).toEqual(['chest-half', 'waist-half', 'bottom-half']);
-    expect(tubePoints('legging')).toEqual(['waist-half', 'hip-half', 'thigh-half', 'knee-half', 'calf-half', 'ankle-half']);
+    expect(tubePoints('legging')).toEqual(['thigh-half', 'knee-half', 'calf-half', 'ankle-half']);
+    expect(tubePoints('shorts')).toEqual(['thigh-half']);
     expect(pointsOfMeasure['across-shoulder'].kind).toBe('width');
   });
 
