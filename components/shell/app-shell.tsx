@@ -17,6 +17,7 @@ export function AppShell({ user, children }: { user: SessionUser; children: Reac
           </Link>
           <nav className="flex items-center gap-1 text-sm" aria-label="Main">
             <NavLink href="/styles">{outside ? (user.role === 'mill' ? 'Released to you' : 'Shared with you') : 'Styles'}</NavLink>
+            {can(user.role, 'library:read') ? <NavLink href="/library">Library</NavLink> : null}
             {can(user.role, 'members:manage') ? <NavLink href="/members">Members</NavLink> : null}
           </nav>
           <div className="ml-auto flex items-center gap-3 text-sm">

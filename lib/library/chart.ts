@@ -44,30 +44,34 @@ export function decodeCells(rows: readonly string[]): StitchAction[][] {
   });
 }
 
-/** What the chart editor edits: the repeat's cells and the feeder of each course. */
-export interface Chart {
+/**
+ * What the chart editor edits: the repeat's cells and what each course is knitted with (its
+ * feeder, or in the editor the index of a feeder set).
+ */
+export interface Chart<F = Feeder> {
   cells: StitchAction[][];
-  feeders: Feeder[];
+  feeders: F[];
 }
 
 export const chartLimits = { maxNeedles: 96, maxCourses: 96 } as const;
 
+const copy = <F>(f: F): F => (typeof f === 'object' && f !== null ? structuredClone(f) : f);
 const cloneFeeder = (f: Feeder): Feeder => (f.plated ? { ground: f.ground, plated: { ...f.plated } } : { ground: f.ground });
 
 /** A chart of `needles` × `courses`, every cell `action`, every course on `feeder`. */
-export function blankChart(needles: number, courses: number, feeder: Feeder, action: StitchAction = 'knit'): Chart {
+export function blankChart<F>(needles: number, courses: number, feeder: F, action: StitchAction = 'knit'): Chart<F> {
   return {
     cells: Array.from({ length: courses }, () => Array.from({ length: needles }, () => action)),
-    feeders: Array.from({ length: courses }, () => cloneFeeder(feeder)),
+    feeders: Array.from({ length: courses }, () => copy(feeder)),
   };
 }
 
-export function chartSize(chart: Chart): { needles: number; courses: number } {
+export function chartSize<F>(chart: Chart<F>): { needles: number; courses: number } {
   return { needles: chart.cells[0]?.length ?? 0, courses: chart.cells.length };
 }
 
 /** Sets one cell; returns the same chart when nothing changes (so a drag over a painted cell is free). */
-export function paintCell(chart: Chart, course: number, needle: number, action: StitchAction): Chart {
+export function paintCell<F>(chart: Chart<F>, course: number, needle: number, action: StitchAction): Chart<F> {
   const row = chart.cells[course];
   if (!row || needle < 0 || needle >= row.length || row[needle] === action) return chart;
   const cells = chart.cells.slice();
@@ -78,7 +82,7 @@ export function paintCell(chart: Chart, course: number, needle: number, action: 
 }
 
 /** Every needle of one course set to `action`. */
-export function fillCourse(chart: Chart, course: number, action: StitchAction): Chart {
+export function fillCourse<F>(chart: Chart<F>, course: number, action: StitchAction): Chart<F> {
   const row = chart.cells[course];
   if (!row) return chart;
   const cells = chart.cells.slice();
@@ -87,7 +91,7 @@ export function fillCourse(chart: Chart, course: number, action: StitchAction): 
 }
 
 /** One needle set to `action` in every course. */
-export function fillNeedle(chart: Chart, needle: number, action: StitchAction): Chart {
+export function fillNeedle<F>(chart: Chart<F>, needle: number, action: StitchAction): Chart<F> {
   return { ...chart, cells: chart.cells.map((row) => row.map((a, n) => (n === needle ? action : a))) };
 }
 
@@ -105,7 +109,7 @@ const rotate = <T>(list: readonly T[], by: number): T[] => {
  * Right moves every needle to the next one; up moves every course one later in knitting order
  * (up the chart, course 1 at the bottom). A course keeps its feeder when it moves.
  */
-export function shiftChart(chart: Chart, direction: ShiftDirection): Chart {
+export function shiftChart<F>(chart: Chart<F>, direction: ShiftDirection): Chart<F> {
   switch (direction) {
     case 'left':
       return { ...chart, cells: chart.cells.map((row) => rotate(row, -1)) };
@@ -123,29 +127,30 @@ export function shiftChart(chart: Chart, direction: ShiftDirection): Chart {
  * anchored), cut ones are dropped, new cells knit, new courses take the feeder of the last course.
  * @throws RangeError for sizes outside 1 … chartLimits.
  */
-export function resizeChart(chart: Chart, needles: number, courses: number): Chart {
+export function resizeChart<F>(chart: Chart<F>, needles: number, courses: number): Chart<F> {
   if (!Number.isInteger(needles) || needles < 1 || needles > chartLimits.maxNeedles) {
     throw new RangeError(`A repeat is 1 to ${chartLimits.maxNeedles} needles wide.`);
   }
   if (!Number.isInteger(courses) || courses < 1 || courses > chartLimits.maxCourses) {
     throw new RangeError(`A repeat is 1 to ${chartLimits.maxCourses} courses high.`);
   }
-  const lastFeeder = chart.feeders[chart.feeders.length - 1] ?? { ground: '' };
+  const lastFeeder = chart.feeders[chart.feeders.length - 1];
+  if (lastFeeder === undefined) throw new RangeError('A chart has at least one course.');
   const cells: StitchAction[][] = [];
-  const feeders: Feeder[] = [];
+  const feeders: F[] = [];
   for (let c = 0; c < courses; c++) {
     const row = chart.cells[c] ?? [];
     cells.push(Array.from({ length: needles }, (_, n) => row[n] ?? 'knit'));
-    feeders.push(cloneFeeder(chart.feeders[c] ?? lastFeeder));
+    feeders.push(copy(chart.feeders[c] ?? lastFeeder));
   }
   return { cells, feeders };
 }
 
 /** Sets the feeder of one course. */
-export function setCourseFeeder(chart: Chart, course: number, feeder: Feeder): Chart {
+export function setCourseFeeder<F>(chart: Chart<F>, course: number, feeder: F): Chart<F> {
   if (course < 0 || course >= chart.feeders.length) return chart;
   const feeders = chart.feeders.slice();
-  feeders[course] = cloneFeeder(feeder);
+  feeders[course] = copy(feeder);
   return { ...chart, feeders };
 }
 
