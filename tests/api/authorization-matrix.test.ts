@@ -112,6 +112,24 @@ async function freshLabDip(styleId: string) {
   return res.json.labDip as { id: string; version: number };
 }
 
+// Fit: a style's size spec, its sheet, the studio factor, sample rounds and corrections.
+async function freshRound() {
+  const designer = await as('designer');
+  const s = await freshStyle();
+  const res = await designer.post(`/api/styles/${s.id}/fit/rounds`, { version: s.version, kind: 'proto', size: 'M', measurements: {} });
+  return { styleId: s.id, roundId: res.json.round.id as string, version: res.json.fit.version as number };
+}
+
+async function freshCorrection() {
+  const designer = await as('designer');
+  const r = await freshRound();
+  const res = await designer.post(`/api/styles/${r.styleId}/fit/rounds/${r.roundId}/corrections`, {
+    version: r.version, point: 'chest-half', size: 'M', toCm: 31, scope: 'size',
+  });
+  const fit = res.json.fit;
+  return { ...r, correctionId: fit.rounds[0].corrections[0].id as string, version: fit.version as number };
+}
+
 export const matrix: Record<string, Entry> = {
   'GET /api/health': {
     expect: { anon: 200, admin: 200, designer: 200, 'colour-lead': 200, client: 200, mill: 200 },
@@ -303,6 +321,60 @@ export const matrix: Record<string, Entry> = {
     run: async (c, ctx) => {
       const dip = await freshLabDip(ctx.sharedStyleId);
       return c.patch(`/api/styles/${ctx.sharedStyleId}/lab-dips/${dip.id}`, { version: dip.version, decision: 'approved' });
+    },
+  },
+  'GET /api/styles/[id]/fit': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/fit`) },
+  'PUT /api/styles/[id]/fit': {
+    expect: editors(200),
+    run: async (c) => {
+      const s = await freshStyle();
+      const fit = (await (await as('designer')).get(`/api/styles/${s.id}/fit`)).json.fit;
+      const { baseSize, points, girths, cutAndSew, baseTextureId, compressionTextureId, cylinderDiametersIn, target } = fit.spec;
+      return c.put(`/api/styles/${s.id}/fit`, { version: fit.version, baseSize, points, girths, cutAndSew, baseTextureId, compressionTextureId, cylinderDiametersIn, target });
+    },
+  },
+  'GET /api/styles/[id]/fit/sheet': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/fit/sheet`) },
+  'PUT /api/styles/[id]/fit/equivalence': {
+    expect: editors(200),
+    run: async (c, ctx) => {
+      const { studioFactor } = (await (await as('designer')).get(`/api/styles/${ctx.sharedStyleId}/fit`)).json.fit;
+      const expected = studioFactor.isDefault ? null : studioFactor.factor;
+      return c.put(`/api/styles/${ctx.sharedStyleId}/fit/equivalence`, { factor: 19 / 20.5, expected });
+    },
+  },
+  'POST /api/styles/[id]/fit/rounds': {
+    expect: editors(201),
+    run: async (c) => {
+      const s = await freshStyle();
+      return c.post(`/api/styles/${s.id}/fit/rounds`, { version: s.version, kind: 'fit', size: 'M', measurements: { 'chest-half': 31 } });
+    },
+  },
+  'PATCH /api/styles/[id]/fit/rounds/[roundId]': {
+    expect: editors(200),
+    run: async (c) => {
+      const r = await freshRound();
+      return c.patch(`/api/styles/${r.styleId}/fit/rounds/${r.roundId}`, { version: r.version, notes: 'Matrix note' });
+    },
+  },
+  'POST /api/styles/[id]/fit/rounds/[roundId]/comments': {
+    expect: editors(201),
+    run: async (c) => {
+      const r = await freshRound();
+      return c.post(`/api/styles/${r.styleId}/fit/rounds/${r.roundId}/comments`, { version: r.version, body: 'Matrix comment' });
+    },
+  },
+  'POST /api/styles/[id]/fit/rounds/[roundId]/corrections': {
+    expect: editors(201),
+    run: async (c) => {
+      const r = await freshRound();
+      return c.post(`/api/styles/${r.styleId}/fit/rounds/${r.roundId}/corrections`, { version: r.version, point: 'chest-half', size: 'M', toCm: 30, scope: 'size' });
+    },
+  },
+  'PATCH /api/styles/[id]/fit/rounds/[roundId]/corrections/[correctionId]': {
+    expect: editors(200),
+    run: async (c) => {
+      const k = await freshCorrection();
+      return c.patch(`/api/styles/${k.styleId}/fit/rounds/${k.roundId}/corrections/${k.correctionId}`, { version: k.version, decision: 'accept' });
     },
   },
 };
