@@ -4,7 +4,7 @@ import nextTs from 'eslint-config-next/typescript';
 const pure = ['lib/knit/**', 'lib/colour/**', 'lib/fit/**', 'lib/rules/**', 'lib/editor/**'];
 
 export default [
-  { ignores: ['.next/**', 'node_modules/**', '.pgdata/**', '.data/**', 'next-env.d.ts'] },
+  { ignores: ['.next/**', '.next-*/**', 'node_modules/**', '.pgdata/**', '.data/**', 'next-env.d.ts'] },
   ...next,
   ...nextTs,
   {

@@ -1,5 +1,7 @@
 /** The style workspace's sections, in the design's order. Only those built so far are listed. */
 export const workspaceSections = [
   { slug: '', label: 'Brief' },
+  { slug: 'body-map', label: 'Body map' },
+  { slug: 'colour', label: 'Colour' },
   { slug: 'history', label: 'History' },
 ] as const;

@@ -5,6 +5,10 @@ import { findStyle, type Style } from './styles';
 import type { Panel, PanelKind, StitchPolygon, Zone, ZoneFunction } from '@/lib/knit/panel';
 import type { BodyMapSave } from '@/lib/validations/body-map';
 import { conflict, HttpError, notFound } from '@/lib/api/errors';
+import { randomUUID } from 'node:crypto';
+import { generatePanels } from '@/lib/knit/outline';
+import { cylinderNeedles } from '@/lib/fit/needles';
+import { fallbackDensity } from '@/lib/editor';
 
 export interface BodyMap {
   /** The style's version this map belongs to (optimistic concurrency). */
@@ -94,6 +98,14 @@ export async function saveBodyMap(user: SessionUser, styleId: string, input: Bod
       p.zones.map((z) => ({ id: z.id, panel_id: p.id, name: z.name, texture_id: z.textureId, fn: z.fn, stack_order: z.order, polygon: JSON.stringify(z.polygon) })),
     );
     for (let i = 0; i < zoneRows.length; i += 500) await trx('zones').insert(zoneRows.slice(i, i + 500));
+    // Every texture the map uses belongs to the style's textures (mill and client see those).
+    const used = [...new Set(textureIds)];
+    if (used.length) {
+      await trx('style_textures')
+        .insert(used.map((texture_id) => ({ style_id: styleId, texture_id, added_by: user.id })))
+        .onConflict(['style_id', 'texture_id'])
+        .ignore();
+    }
     await trx('audit_log').insert({
       studio_id: user.studioId, style_id: styleId, user_id: user.id, action: 'body-map.save',
       details: JSON.stringify({ panels: input.panels.length, zones: zoneRows.length, version }),
@@ -101,4 +113,51 @@ export async function saveBodyMap(user: SessionUser, styleId: string, input: Bod
     const updated = await findStyle(user, styleId, trx);
     return { version, style: updated! };
   });
+}
+
+/**
+ * The texture that fills generated panels: the style's first texture, else the studio's first
+ * jersey-like texture, else any; with its density. Null when the library is empty.
+ */
+export async function baseTextureForGeneration(
+  studioId: string,
+  styleId: string,
+  q: Knex | Knex.Transaction = db(),
+): Promise<{ id: string; walesPerCm: number; coursesPerCm: number } | null> {
+  const row =
+    (await q('style_textures as st')
+      .join('textures as t', 't.id', 'st.texture_id')
+      .where({ 'st.style_id': styleId })
+      .whereNull('t.archived_at')
+      .orderBy([{ column: 'st.position' }, { column: 't.name' }])
+      .first('t.id', 't.wales_per_cm', 't.courses_per_cm')) ??
+    (await q('textures')
+      .where({ studio_id: studioId })
+      .whereNull('archived_at')
+      .orderByRaw("case family when 'jersey' then 0 else 1 end, name")
+      .first('id', 'wales_per_cm', 'courses_per_cm'));
+  if (!row) return null;
+  return { id: row.id, walesPerCm: Number(row.wales_per_cm), coursesPerCm: Number(row.courses_per_cm) };
+}
+
+/** The saved map, or panels generated from the style when nothing is saved yet (not stored until saved). */
+export async function loadBodyMap(user: SessionUser, styleId: string, q: Knex = db()): Promise<BodyMap | null> {
+  const style = await findStyle(user, styleId, q);
+  if (!style) return null;
+  const panels = await loadPanels(styleId, q);
+  if (panels.length) return { version: style.version, panels, generated: false };
+  const base = await baseTextureForGeneration(user.studioId, styleId, q);
+  const machineNeedles =
+    style.machine.kind === 'circular'
+      ? cylinderNeedles(style.machine.diameterIn, style.machine.gauge, style.machine.needleMultiple)
+      : style.machine.bedNeedles;
+  const generatedPanels = generatePanels({
+    garment: style.garmentType,
+    construction: style.construction,
+    machineNeedles,
+    density: base ?? fallbackDensity,
+    baseTextureId: base?.id ?? '',
+    newId: () => randomUUID(),
+  });
+  return { version: style.version, panels: generatedPanels, generated: true };
 }

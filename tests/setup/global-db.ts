@@ -49,7 +49,7 @@ async function waitFor(url: string, ms: number, server: ChildProcess, log: () =>
 }
 
 export default async function setup(project: TestProject) {
-  if (!existsSync(path.join(root, '.next', 'BUILD_ID'))) {
+  if (!existsSync(path.join(root, process.env.NEXT_DIST_DIR || '.next', 'BUILD_ID'))) {
     throw new Error('No production build found: run `npm run build` first (npm test does it for you).');
   }
   execFileSync('bash', [path.join(root, 'db/setup.sh'), 'start'], { stdio: 'inherit' });

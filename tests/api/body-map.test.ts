@@ -1,0 +1,128 @@
+import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
+import knexFactory, { type Knex } from 'knex';
+import { randomUUID } from 'node:crypto';
+import { as, newStyleBody, styleByCode } from './helpers';
+
+let knex: Knex;
+let textureIds: string[] = [];
+let otherStudioTexture: string | null = null;
+
+beforeAll(async () => {
+  knex = knexFactory({ client: 'pg', connection: inject('databaseUrl') });
+  const studio = await knex('studios').where({ name: 'Hollowfell Knit Lab' }).first('id');
+  textureIds = await knex('textures').where({ studio_id: studio.id }).whereNull('archived_at').orderBy('name').pluck('id');
+  const other = await knex('studios').where({ name: 'Oxbow Knit Collective' }).first('id');
+  const [t] = await knex('textures').where({ studio_id: other.id }).pluck('id');
+  otherStudioTexture = t ?? null;
+});
+afterAll(async () => { await knex?.destroy(); });
+
+const rect = (x0: number, y0: number, x1: number, y1: number) => [{ x: x0, y: y0 }, { x: x1, y: y0 }, { x: x1, y: y1 }, { x: x0, y: y1 }];
+
+async function freshMap() {
+  const designer = await as('designer');
+  const style = (await designer.post('/api/styles', newStyleBody())).json.style;
+  const map = (await designer.get(`/api/styles/${style.id}/body-map`)).json;
+  return { designer, style, map };
+}
+
+function withZone(map: any, zone: Partial<{ id: string; polygon: { x: number; y: number }[]; textureId: string; fn: string; name: string }> = {}) {
+  const panels = structuredClone(map.panels);
+  panels[0].zones.push({
+    id: zone.id ?? randomUUID(), name: zone.name ?? 'Side compression', textureId: zone.textureId ?? textureIds[1], fn: zone.fn ?? 'compression', order: 1,
+    polygon: zone.polygon ?? rect(10, 100, 120, 600),
+  });
+  return panels;
+}
+
+describe('body map API', () => {
+  it('the demo library has textures to paint with', () => {
+    expect(textureIds.length).toBeGreaterThanOrEqual(8);
+  });
+
+  it('GET generates front and back panels half the cylinder wide when nothing is saved', async () => {
+    const { map, style } = await freshMap();
+    expect(map.generated).toBe(true);
+    expect(map.version).toBe(style.version);
+    const kinds = map.panels.map((p: any) => p.kind);
+    expect(kinds.slice(0, 2)).toEqual(['front', 'back']);
+    // 14 in × 28 npi × π = 1231.5 → 1232 needles at a multiple of 4; each panel is half.
+    expect(map.panels[0].widthNeedles).toBe(616);
+  });
+
+  it('PUT saves panels and zones at the current version; GET returns them; an audit entry is written', async () => {
+    const { designer, style, map } = await freshMap();
+    const panels = withZone(map);
+    const res = await designer.put(`/api/styles/${style.id}/body-map`, { version: map.version, panels });
+    expect(res.status).toBe(200);
+    expect(res.json.version).toBe(map.version + 1);
+    const again = (await designer.get(`/api/styles/${style.id}/body-map`)).json;
+    expect(again.generated).toBe(false);
+    expect(again.panels[0].zones).toEqual(panels[0].zones);
+    expect(again.panels.map((p: any) => p.id)).toEqual(panels.map((p: any) => p.id));
+    const hist = (await designer.get(`/api/styles/${style.id}/history`)).json.entries;
+    expect(hist[0].action).toBe('body-map.save');
+    expect(hist[0].details.zones).toBe(1);
+    // The textures used are now the style's textures.
+    const used = await knex('style_textures').where({ style_id: style.id }).pluck('texture_id');
+    expect(used).toEqual(expect.arrayContaining([textureIds[1], map.panels[0].baseTextureId]));
+  });
+
+  it('a stale save gets 409 and changes nothing', async () => {
+    const { designer, style, map } = await freshMap();
+    const first = await designer.put(`/api/styles/${style.id}/body-map`, { version: map.version, panels: withZone(map, { name: 'First' }) });
+    expect(first.status).toBe(200);
+    const stale = await designer.put(`/api/styles/${style.id}/body-map`, { version: map.version, panels: withZone(map, { name: 'Stale' }) });
+    expect(stale.status).toBe(409);
+    const now = (await designer.get(`/api/styles/${style.id}/body-map`)).json;
+    expect(now.panels[0].zones.map((z: any) => z.name)).toEqual(['First']);
+    expect(now.version).toBe(first.json.version);
+  });
+
+  it('interleaved saves from two designers: one wins, the other gets 409; no zone lost or duplicated', async () => {
+    const { designer, style, map } = await freshMap();
+    const admin = await as('admin');
+    const a = withZone(map, { name: 'From designer' });
+    const b = withZone(map, { name: 'From admin' });
+    const results = await Promise.all([
+      designer.put(`/api/styles/${style.id}/body-map`, { version: map.version, panels: a }),
+      admin.put(`/api/styles/${style.id}/body-map`, { version: map.version, panels: b }),
+    ]);
+    expect(results.map((r) => r.status).sort()).toEqual([200, 409]);
+    const winner = results[0]!.status === 200 ? 'From designer' : 'From admin';
+    const now = (await designer.get(`/api/styles/${style.id}/body-map`)).json;
+    expect(now.panels[0].zones.map((z: any) => z.name)).toEqual([winner]);
+    const zoneRows = await knex('zones as z').join('panels as p', 'p.id', 'z.panel_id').where('p.style_id', style.id).count<{ count: string }[]>('* as count');
+    expect(Number(zoneRows[0]!.count)).toBe(1);
+  });
+
+  it('refuses bad geometry and foreign textures with 400 and field errors, saving nothing', async () => {
+    const { designer, style, map } = await freshMap();
+    const put = (panels: any) => designer.put(`/api/styles/${style.id}/body-map`, { version: map.version, panels });
+    const bowtie = [{ x: 10, y: 10 }, { x: 100, y: 100 }, { x: 100, y: 10 }, { x: 10, y: 100 }];
+    const selfCrossing = await put(withZone(map, { polygon: bowtie }));
+    expect(selfCrossing.status).toBe(400);
+    expect(JSON.stringify(selfCrossing.json.fieldErrors)).toMatch(/cross/);
+    const outside = await put(withZone(map, { polygon: rect(500, 10, 900, 50) }));
+    expect(outside.status).toBe(400);
+    expect(JSON.stringify(outside.json.fieldErrors)).toMatch(/outside the panel/);
+    expect((await put(withZone(map, { fn: 'decoration' }))).status).toBe(400);
+    expect((await put(withZone(map, { textureId: randomUUID() }))).status).toBe(400);
+    if (otherStudioTexture) expect((await put(withZone(map, { textureId: otherStudioTexture }))).status).toBe(400);
+    expect((await designer.request('PUT', `/api/styles/${style.id}/body-map`, '{"version":', { 'content-type': 'application/json' })).status).toBe(400);
+    const now = (await designer.get(`/api/styles/${style.id}/body-map`)).json;
+    expect(now.generated).toBe(true);
+  });
+
+  it('mill and client read a shared style\'s map but may not save it', async () => {
+    const shared = await styleByCode('HF27-101');
+    for (const who of ['mill', 'client'] as const) {
+      const c = await as(who);
+      const res = await c.get(`/api/styles/${shared.id}/body-map`);
+      expect(res.status).toBe(200);
+      expect((await c.put(`/api/styles/${shared.id}/body-map`, { version: res.json.version, panels: res.json.panels })).status).toBe(403);
+    }
+    const notShared = await styleByCode('HF27-103');
+    expect((await (await as('mill')).get(`/api/styles/${notShared.id}/body-map`)).status).toBe(404);
+  });
+});

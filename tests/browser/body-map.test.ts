@@ -1,0 +1,97 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { launch, signIn } from './browser';
+import { accounts, baseUrl, newStyleBody, as } from '../api/helpers';
+
+type PanelBox = { id: string; x: number; y: number; w: number; h: number };
+
+async function panels(page: Page): Promise<{ box: { x: number; y: number }; panels: PanelBox[] }> {
+  const canvas = page.getByTestId('body-map-canvas');
+  await canvas.waitFor();
+  const box = (await canvas.boundingBox())!;
+  const panels = JSON.parse((await canvas.getAttribute('data-panels'))!) as PanelBox[];
+  return { box, panels };
+}
+
+/** Clicks a polygon on the front panel at fractions of its size, then presses Enter to close it. */
+async function drawZone(page: Page, pts: [number, number][]) {
+  const { box, panels: ps } = await panels(page);
+  const front = ps[0]!;
+  await page.keyboard.press('d');
+  for (const [fx, fy] of pts) {
+    await page.mouse.click(box.x + front.x + front.w * fx, box.y + front.y + front.h * fy);
+  }
+  await page.keyboard.press('Enter');
+}
+
+async function savedState(page: Page) {
+  return page.getByTestId('save-state').getAttribute('data-state');
+}
+
+describe('body map in the browser', () => {
+  let browser: Browser;
+  let styleId: string;
+  beforeAll(async () => {
+    browser = await launch();
+    const designer = await as('designer');
+    styleId = (await designer.post('/api/styles', { ...newStyleBody(), name: 'Body-map browser test' })).json.style.id;
+  });
+  afterAll(async () => { await browser?.close(); });
+
+  it('the designer draws a zone, assigns a texture, sees the summary change, and finds it after reload', async () => {
+    const page = await signIn(browser, accounts.designer);
+    await page.goto(`${baseUrl()}/styles/${styleId}/body-map`);
+    await page.getByTestId('body-map-canvas').waitFor();
+    const totalsBefore = await page.getByTestId('texture-totals').textContent();
+
+    await drawZone(page, [[0.1, 0.45], [0.4, 0.45], [0.4, 0.7], [0.1, 0.7]]);
+    const inspector = page.getByLabel('Selected zone');
+    await inspector.waitFor();
+    const textureSelect = page.getByLabel('Texture', { exact: true });
+    const options = await textureSelect.locator('option').allTextContents();
+    const pick = options.find((o) => /mesh/i.test(o)) ?? options[options.length - 1]!;
+    await textureSelect.selectOption({ label: pick });
+    await page.getByLabel('Name', { exact: true }).fill('Underarm vent');
+    await page.getByLabel('Name', { exact: true }).press('Enter');
+
+    await expect.poll(() => page.getByTestId('texture-totals').textContent()).not.toBe(totalsBefore);
+    expect(await page.getByTestId('texture-totals').textContent()).toContain(pick);
+    await expect.poll(() => savedState(page), { timeout: 10_000 }).toBe('saved');
+
+    await page.reload();
+    await page.getByTestId('body-map-canvas').waitFor();
+    await expect.poll(() => page.getByRole('button', { name: /Underarm vent/ }).count()).toBe(1);
+  });
+
+  it('the client reviewer sees the body map read-only', async () => {
+    const page = await signIn(browser, accounts.client);
+    const shared = (await (await as('client')).get('/api/styles')).json.styles[0];
+    await page.goto(`${baseUrl()}/styles/${shared.id}/body-map`);
+    await page.getByTestId('body-map-canvas').waitFor();
+    expect(await savedState(page)).toBe('read-only');
+    expect(await page.getByRole('button', { name: 'Draw zone' }).isDisabled()).toBe(true);
+  });
+
+  it('a stale second tab gets the conflict state instead of overwriting', async () => {
+    const a = await signIn(browser, accounts.designer);
+    const b = await a.context().newPage();
+    await a.goto(`${baseUrl()}/styles/${styleId}/body-map`);
+    await b.goto(`${baseUrl()}/styles/${styleId}/body-map`);
+    await a.getByTestId('body-map-canvas').waitFor();
+    await b.getByTestId('body-map-canvas').waitFor();
+
+    await a.bringToFront();
+    await drawZone(a, [[0.5, 0.2], [0.8, 0.2], [0.8, 0.3]]);
+    await expect.poll(() => savedState(a), { timeout: 10_000 }).toBe('saved');
+
+    await b.bringToFront();
+    await drawZone(b, [[0.5, 0.8], [0.8, 0.8], [0.8, 0.9]]);
+    await expect.poll(() => savedState(b), { timeout: 10_000 }).toBe('conflict');
+    expect(await b.getByRole('button', { name: 'Reload latest' }).count()).toBe(1);
+    // Reloading brings in the other tab's zone.
+    const zonesBefore = await b.getByLabel('Zones').locator('li').count();
+    await b.getByRole('button', { name: 'Reload latest' }).click();
+    await expect.poll(() => savedState(b)).toBe('saved');
+    expect(await b.getByLabel('Zones').locator('li').count()).toBe(zonesBefore);
+  });
+});
