@@ -10,9 +10,9 @@ export interface CurvePointDraft {
 }
 
 function CurvePlot({ points }: { points: { x: number; y: number }[] }) {
-  const w = 260;
-  const h = 120;
-  const pad = { l: 30, r: 8, t: 8, b: 22 };
+  const w = 300;
+  const h = 130;
+  const pad = { l: 32, r: 22, t: 8, b: 22 };
   const maxX = Math.max(60, ...points.map((p) => p.x));
   const maxY = Math.max(1, ...points.map((p) => p.y));
   const sx = (x: number) => pad.l + (x / maxX) * (w - pad.l - pad.r);

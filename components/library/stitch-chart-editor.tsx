@@ -208,112 +208,124 @@ export function StitchChartEditor({ chart, sets, readOnly = false, onChange, onU
         </div>
       )}
 
-      <div className="overflow-auto rounded-md border border-rule bg-paper/60 p-4">
-        <div className="inline-grid gap-x-2 gap-y-1.5" style={{ gridTemplateColumns: 'auto auto auto' }}>
-          {/* Course numbers: click to fill the course. */}
-          <div className="flex flex-col" aria-label="Courses">
-            {Array.from({ length: courses }, (_, row) => {
-              const course = courses - 1 - row;
-              return (
+      <div className="flex flex-wrap items-start gap-5">
+        <div className="max-w-full overflow-auto rounded-md border border-rule bg-paper/60 p-4">
+          <div className="inline-grid gap-x-2 gap-y-1.5" style={{ gridTemplateColumns: 'auto auto auto' }}>
+            {/* Course numbers: click to fill the course. */}
+            <div className="flex flex-col" aria-label="Courses">
+              {Array.from({ length: courses }, (_, row) => {
+                const course = courses - 1 - row;
+                return (
+                  <button
+                    key={course}
+                    type="button"
+                    disabled={readOnly}
+                    onClick={() => change(fillCourse(chartRef.current, course, tool), true)}
+                    aria-label={`Fill course ${course + 1} with ${actionStyle[tool].label.toLowerCase()}`}
+                    title={readOnly ? `Course ${course + 1}` : `Fill course ${course + 1} with ${actionStyle[tool].label.toLowerCase()}`}
+                    className={`figures flex items-center justify-end rounded-sm pr-1 ${labelFont} text-ink-faint enabled:hover:bg-spruce-50 enabled:hover:text-spruce-700`}
+                    style={{ height: cell, minWidth: 22 }}
+                  >
+                    {course + 1}
+                  </button>
+                );
+              })}
+            </div>
+            <svg
+              ref={svgRef}
+              width={width}
+              height={height}
+              viewBox={`0 0 ${width} ${height}`}
+              role="img"
+              aria-label={`Stitch chart, ${needles} needles by ${courses} courses`}
+              data-testid="stitch-chart"
+              className={`block touch-none select-none bg-panel ${readOnly ? '' : 'cursor-crosshair'}`}
+              onPointerDown={onPointerDown}
+              onPointerMove={(e) => gesture.current && paintAt(e)}
+              onPointerUp={endGesture}
+              onPointerCancel={endGesture}
+              onLostPointerCapture={endGesture}
+            >
+              {rows}
+              {gridLines}
+            </svg>
+            {/* Feeder set of each course. */}
+            <div className="flex flex-col" aria-label="Feeders">
+              {Array.from({ length: courses }, (_, row) => {
+                const course = courses - 1 - row;
+                const setIndex = chart.feeders[course] ?? 0;
+                const set = sets[setIndex];
+                return (
+                  <div key={course} className="flex items-center gap-1" style={{ height: cell }}>
+                    <span aria-hidden className="h-[70%] w-1 rounded-full" style={{ background: set?.colour ?? '#cbc6bb' }} />
+                    <select
+                      aria-label={`Feeder of course ${course + 1}`}
+                      title={set?.label}
+                      disabled={readOnly}
+                      value={setIndex}
+                      onChange={(e) => change(setCourseFeeder(chartRef.current, course, Number(e.target.value)), true)}
+                      className={`figures rounded border border-transparent bg-transparent px-0.5 font-semibold text-ink-soft hover:border-rule-strong focus:border-spruce-500 focus:outline-none ${cell < 20 ? 'text-[10px]' : 'text-xs'}`}
+                      style={{ height: Math.min(cell, 24) }}
+                    >
+                      {sets.map((s, i) => <option key={i} value={i}>{s.letter}</option>)}
+                    </select>
+                  </div>
+                );
+              })}
+            </div>
+            <div />
+            {/* Needle numbers: click to fill the needle in every course. */}
+            <div className="flex" aria-label="Needles">
+              {Array.from({ length: needles }, (_, n) => (
                 <button
-                  key={course}
+                  key={n}
                   type="button"
                   disabled={readOnly}
-                  onClick={() => change(fillCourse(chartRef.current, course, tool), true)}
-                  aria-label={`Fill course ${course + 1} with ${actionStyle[tool].label.toLowerCase()}`}
-                  title={readOnly ? `Course ${course + 1}` : `Fill course ${course + 1} with ${actionStyle[tool].label.toLowerCase()}`}
-                  className={`figures flex items-center justify-end rounded-sm pr-1 ${labelFont} text-ink-faint enabled:hover:bg-spruce-50 enabled:hover:text-spruce-700`}
-                  style={{ height: cell, minWidth: 22 }}
+                  onClick={() => change(fillNeedle(chartRef.current, n, tool), true)}
+                  aria-label={`Fill needle ${n + 1} with ${actionStyle[tool].label.toLowerCase()}`}
+                  title={readOnly ? `Needle ${n + 1}` : `Fill needle ${n + 1} with ${actionStyle[tool].label.toLowerCase()}`}
+                  className={`figures flex justify-center rounded-sm pt-0.5 ${labelFont} text-ink-faint enabled:hover:bg-spruce-50 enabled:hover:text-spruce-700`}
+                  style={{ width: cell }}
                 >
-                  {course + 1}
+                  {needles > 24 && (n + 1) % 4 !== 0 && n !== 0 ? '' : n + 1}
                 </button>
-              );
-            })}
+              ))}
+            </div>
+            <div />
           </div>
-          <svg
-            ref={svgRef}
-            width={width}
-            height={height}
-            viewBox={`0 0 ${width} ${height}`}
-            role="img"
-            aria-label={`Stitch chart, ${needles} needles by ${courses} courses`}
-            data-testid="stitch-chart"
-            className={`block touch-none select-none bg-panel ${readOnly ? '' : 'cursor-crosshair'}`}
-            onPointerDown={onPointerDown}
-            onPointerMove={(e) => gesture.current && paintAt(e)}
-            onPointerUp={endGesture}
-            onPointerCancel={endGesture}
-            onLostPointerCapture={endGesture}
-          >
-            {rows}
-            {gridLines}
-          </svg>
-          {/* Feeder set of each course. */}
-          <div className="flex flex-col" aria-label="Feeders">
-            {Array.from({ length: courses }, (_, row) => {
-              const course = courses - 1 - row;
-              const setIndex = chart.feeders[course] ?? 0;
-              const set = sets[setIndex];
-              return (
-                <div key={course} className="flex items-center gap-1" style={{ height: cell }}>
-                  <span aria-hidden className="h-[70%] w-1 rounded-full" style={{ background: set?.colour ?? '#cbc6bb' }} />
-                  <select
-                    aria-label={`Feeder of course ${course + 1}`}
-                    title={set?.label}
-                    disabled={readOnly}
-                    value={setIndex}
-                    onChange={(e) => change(setCourseFeeder(chartRef.current, course, Number(e.target.value)), true)}
-                    className={`figures rounded border border-transparent bg-transparent px-0.5 font-semibold text-ink-soft hover:border-rule-strong focus:border-spruce-500 focus:outline-none ${cell < 20 ? 'text-[10px]' : 'text-xs'}`}
-                    style={{ height: Math.min(cell, 24) }}
-                  >
-                    {sets.map((s, i) => <option key={i} value={i}>{s.letter}</option>)}
-                  </select>
-                </div>
-              );
-            })}
-          </div>
-          <div />
-          {/* Needle numbers: click to fill the needle in every course. */}
-          <div className="flex" aria-label="Needles">
-            {Array.from({ length: needles }, (_, n) => (
-              <button
-                key={n}
-                type="button"
-                disabled={readOnly}
-                onClick={() => change(fillNeedle(chartRef.current, n, tool), true)}
-                aria-label={`Fill needle ${n + 1} with ${actionStyle[tool].label.toLowerCase()}`}
-                title={readOnly ? `Needle ${n + 1}` : `Fill needle ${n + 1} with ${actionStyle[tool].label.toLowerCase()}`}
-                className={`figures flex justify-center rounded-sm pt-0.5 ${labelFont} text-ink-faint enabled:hover:bg-spruce-50 enabled:hover:text-spruce-700`}
-                style={{ width: cell }}
-              >
-                {needles > 24 && (n + 1) % 4 !== 0 && n !== 0 ? '' : n + 1}
-              </button>
-            ))}
-          </div>
-          <div />
         </div>
-      </div>
 
-      <div className="flex flex-wrap items-center gap-x-5 gap-y-2 text-xs text-ink-soft" aria-label="Legend">
-        {stitchActions.map((a) => (
-          <span key={a} className="inline-flex items-center gap-1.5">
-            <SymbolSwatch action={a} />
-            <span className="font-medium text-ink">{actionStyle[a].label}</span>
-            <span className="figures text-ink-faint">{counts[a]} / {total}</span>
-          </span>
-        ))}
-        <span className="inline-flex items-center gap-3 border-l border-rule pl-4">
-          {sets.map((s) => (
-            <span key={s.letter} className="inline-flex items-center gap-1.5" title={s.label}>
-              <span aria-hidden className="h-3 w-1 rounded-full" style={{ background: s.colour }} />
-              <span className="figures font-semibold text-ink">{s.letter}</span>
-              <span className="max-w-[16rem] truncate">{s.label}</span>
-            </span>
-          ))}
-        </span>
-        {readOnly ? null : (
-          <span className="ml-auto text-ink-faint">Click or drag to paint · click a course or needle number to fill it · K T M pick the stitch</span>
-        )}
+        <div className="min-w-[14rem] flex-1 space-y-4 text-xs text-ink-soft">
+          <div>
+            <h3 className="mb-1.5 font-semibold uppercase tracking-[0.08em] text-ink-faint">Legend</h3>
+            <ul className="space-y-1.5" aria-label="Legend">
+              {stitchActions.map((a) => (
+                <li key={a} className="flex items-center gap-2">
+                  <SymbolSwatch action={a} />
+                  <span className="w-10 font-medium text-ink">{actionStyle[a].label}</span>
+                  <span className="figures text-ink-faint">{counts[a]} of {total}</span>
+                </li>
+              ))}
+            </ul>
+          </div>
+          <div>
+            <h3 className="mb-1.5 font-semibold uppercase tracking-[0.08em] text-ink-faint">Feeder sets</h3>
+            <ul className="space-y-1.5">
+              {sets.map((s) => (
+                <li key={s.letter} className="flex items-start gap-2">
+                  <span aria-hidden className="mt-0.5 h-3.5 w-1 shrink-0 rounded-full" style={{ background: s.colour }} />
+                  <span className="figures w-3 font-semibold text-ink">{s.letter}</span>
+                  <span>{s.label}</span>
+                </li>
+              ))}
+            </ul>
+          </div>
+          {readOnly ? null : (
+            <p className="leading-relaxed text-ink-faint">
+              Click or drag to paint. Click a course or needle number to fill it with the chosen stitch. Keys: K, T, M pick the stitch; Ctrl+Z undoes.
+            </p>
+          )}
+        </div>
       </div>
     </div>
   );

@@ -145,12 +145,20 @@ export function TextureEditor({ texture, yarns, canEdit, preview }: {
   const errors = useMemo<Record<string, string>>(() => (showErrors ? { ...issues, ...serverErrors } : serverErrors), [showErrors, issues, serverErrors]);
   const err = (path: string) => errors[path];
 
+  // The figures do not wait for a name.
+  const structure = useMemo(
+    () => (parsed.success ? parsed : textureInputSchema.safeParse({ ...entry, name: entry.name.trim().length >= 2 ? entry.name : 'Unnamed texture' })),
+    [parsed, entry],
+  );
   const live = useMemo(() => {
-    if (!parsed.success) return { texture: null, problems: [...new Set(Object.values(issues))].slice(0, 6) };
-    const missing = parsed.data.feeders.some((f) => !yarnById.has(f.ground) || (f.plated && !yarnById.has(f.plated.yarn)));
+    if (!structure.success) {
+      const messages = structure.error.issues.map((i) => i.message);
+      return { texture: null, problems: [...new Set(messages)].slice(0, 6) };
+    }
+    const missing = structure.data.feeders.some((f) => !yarnById.has(f.ground) || (f.plated && !yarnById.has(f.plated.yarn)));
     if (missing) return { texture: null, problems: ['A feeder uses a yarn that is not in the library.'] };
-    return { texture: toDomainTexture(saved.id ?? 'new', parsed.data), problems: [] as string[] };
-  }, [parsed, issues, yarnById, saved.id]);
+    return { texture: toDomainTexture(saved.id ?? 'new', structure.data), problems: [] as string[] };
+  }, [structure, yarnById, saved.id]);
 
   // Feeder errors, per set, in words with their course.
   const setErrors = useMemo(() => {
