@@ -38,7 +38,7 @@ describe('body map in the browser', () => {
   });
   afterAll(async () => { await browser?.close(); });
 
-  it('the designer draws a zone, assigns a texture, sees the summary change, and finds it after reload', async () => {
+  it('the designer draws a zone, assigns a texture, sees the summary change, and finds it after reload', { timeout: 90_000 }, async () => {
     const page = await signIn(browser, accounts.designer);
     await page.goto(`${baseUrl()}/styles/${styleId}/body-map`);
     await page.getByTestId('body-map-canvas').waitFor();
@@ -60,10 +60,10 @@ describe('body map in the browser', () => {
 
     await page.reload();
     await page.getByTestId('body-map-canvas').waitFor();
-    await expect.poll(() => page.getByRole('button', { name: /Underarm vent/ }).count()).toBe(1);
+    await expect.poll(() => page.getByLabel('Zones').getByRole('button', { name: /^Underarm vent/ }).count()).toBe(1);
   });
 
-  it('the client reviewer sees the body map read-only', async () => {
+  it('the client reviewer sees the body map read-only', { timeout: 90_000 }, async () => {
     const page = await signIn(browser, accounts.client);
     const shared = (await (await as('client')).get('/api/styles')).json.styles[0];
     await page.goto(`${baseUrl()}/styles/${shared.id}/body-map`);
@@ -72,7 +72,7 @@ describe('body map in the browser', () => {
     expect(await page.getByRole('button', { name: 'Draw zone' }).isDisabled()).toBe(true);
   });
 
-  it('a stale second tab gets the conflict state instead of overwriting', async () => {
+  it('a stale second tab gets the conflict state instead of overwriting', { timeout: 90_000 }, async () => {
     const a = await signIn(browser, accounts.designer);
     const b = await a.context().newPage();
     await a.goto(`${baseUrl()}/styles/${styleId}/body-map`);
