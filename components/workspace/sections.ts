@@ -3,5 +3,6 @@ export const workspaceSections = [
   { slug: '', label: 'Brief' },
   { slug: 'body-map', label: 'Body map' },
   { slug: 'colour', label: 'Colour' },
+  { slug: 'fit', label: 'Fit' },
   { slug: 'history', label: 'History' },
 ] as const;
