@@ -1,5 +1,7 @@
 'use client';
 
+import { TextureTile } from '@/components/texture/texture-tile';
+
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { useQueryClient } from '@tanstack/react-query';
@@ -409,14 +411,47 @@ export function TextureEditor({ texture, yarns, canEdit, preview }: {
           </Card>
           <Card title="Preview">
             <div data-slot="texture-preview" className="min-h-[8rem]">
-              {previewNode ?? (
+              {previewNode ?? (live.texture ? <TexturePreview texture={live.texture} yarns={yarns} /> : (
                 <div className="flex h-32 items-center justify-center rounded-md border border-dashed border-rule-strong bg-paper text-center text-xs text-ink-faint">
-                  The texture’s rendering appears here.
+                  Fix the chart to see its rendering.
                 </div>
-              )}
+              ))}
             </div>
           </Card>
         </aside>
+      </div>
+    </div>
+  );
+}
+
+/** The texture tiled as knitted loops: magnified to read the structure, and at true size on screen. */
+function TexturePreview({ texture, yarns }: { texture: Texture; yarns: readonly Yarn[] }) {
+  const widthCm = texture.repeat.needles / texture.density.walesPerCm;
+  const heightCm = texture.repeat.courses / texture.density.coursesPerCm;
+  // Magnified so a needle is about 14 px; whole repeats filling about 300 × 200 px.
+  const pxPerCm = 14 * texture.density.walesPerCm;
+  const rx = Math.max(1, Math.ceil(300 / (widthCm * pxPerCm)));
+  const ry = Math.max(1, Math.ceil(200 / (heightCm * pxPerCm)));
+  const trueSize = 96 / 2.54;
+  return (
+    <div className="space-y-2">
+      <div className="overflow-hidden rounded-md border border-rule">
+        <TextureTile texture={texture} yarns={yarns} pxPerCm={pxPerCm} repeats={{ x: rx, y: ry }} className="block max-w-full" />
+      </div>
+      <div className="flex items-end gap-3">
+        <div className="overflow-hidden rounded border border-rule">
+          <TextureTile
+            texture={texture}
+            yarns={yarns}
+            pxPerCm={trueSize}
+            repeats={{ x: Math.max(1, Math.ceil(2 / widthCm)), y: Math.max(1, Math.ceil(2 / heightCm)) }}
+            className="block"
+          />
+        </div>
+        <p className="text-xs text-ink-faint">
+          Left: about true size on a 96 dpi screen. Above: ×{(pxPerCm / trueSize).toFixed(0)}, {rx} × {ry} repeats of{' '}
+          <span className="figures">{(widthCm * 10).toFixed(1)} × {(heightCm * 10).toFixed(1)} mm</span>.
+        </p>
       </div>
     </div>
   );

@@ -15,6 +15,16 @@ const verbs: Record<string, string> = {
   'fit.correction.propose': 'Proposed a correction',
   'fit.correction.accept': 'Accepted a correction',
   'fit.correction.reject': 'Rejected a correction',
+  'style.release': 'Released',
+  'proposal.request': 'Asked for approval of',
+  'proposal.comment': 'Commented on',
+  'proposal.decide': 'Decided on',
+  'test-knit.request': 'Requested test knits of',
+  'test-knit.submit': 'Sent the test knit of',
+  'test-knit.decide': 'Decided on the test knit of',
+  'mill-pack.generate': 'Built the mill pack of',
+  'file.upload': 'Uploaded',
+  'mail.failed': 'Could not e-mail',
 };
 
 /** One line of plain words for an audit entry. */
@@ -24,7 +34,36 @@ export function describeAudit(action: string, details: Record<string, unknown>):
   if (action === 'style.share') return `${verb} ${String(details.organisation ?? '')}`;
   if (action === 'body-map.save' && typeof details.zones === 'number') return `${verb} (${details.zones} zones)`;
   if (action.startsWith('fit.')) return describeFit(action, verb, details);
+  if (/^(style\.release|proposal\.|test-knit\.|mill-pack\.|file\.|mail\.)/.test(action)) return describeMill(action, verb, details);
   return verb;
+}
+
+/** Releases, client reviews, test knits, mill packs, uploads: which revision, texture, mill or file. */
+function describeMill(action: string, verb: string, d: Record<string, unknown>): string {
+  const text = (v: unknown) => (typeof v === 'string' ? v : '');
+  const rev = typeof d.revision === 'number' ? `revision ${d.revision}` : '';
+  switch (action) {
+    case 'style.release':
+      return `${verb} ${rev} to ${Array.isArray(d.mills) ? d.mills.join(', ') : 'the mills'}`;
+    case 'proposal.request':
+      return `${verb} ${rev} from ${text(d.client)}`;
+    case 'proposal.decide':
+      return `${d.decision === 'approved' ? 'Approved' : 'Asked for changes to'} ${rev}${text(d.client) ? ` (${text(d.client)})` : ''}`;
+    case 'test-knit.request':
+      return `${verb} ${rev}: ${String(d.requested ?? 0)} requested`;
+    case 'test-knit.submit':
+      return `${verb} ${text(d.texture)}${d.flagged ? ' (off plan)' : ''}`;
+    case 'test-knit.decide':
+      return `${d.decision === 'approved' ? 'Approved' : 'Asked for a change to'} the test knit of ${text(d.texture)} (${text(d.mill)})`;
+    case 'mill-pack.generate':
+      return `${verb} ${rev || 'the working copy'} (${String(d.pages ?? '?')} pages)`;
+    case 'file.upload':
+      return `${verb} ${text(d.name) || 'a file'} (${text(d.kind)})`;
+    case 'mail.failed':
+      return `${verb} ${Array.isArray(d.failed) && d.failed.length ? d.failed.join(', ') : 'the recipients'}`;
+    default:
+      return `${verb} ${rev}`.trim();
+  }
 }
 
 /** Size spec, sample-round and correction entries: which points, which round, from what to what (cm). */
