@@ -1,12 +1,17 @@
 import type { Metadata } from 'next';
 import { SignInForm } from '@/components/auth/sign-in-form';
 import { NeedlemapMark } from '@/components/shell/mark';
+import { redirect } from 'next/navigation';
+import { currentUser } from '@/lib/auth/authorize';
 
 export const metadata: Metadata = { title: 'Sign in' };
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<{ next?: string }> }) {
   const { next } = await searchParams;
   const safeNext = next && next.startsWith('/') && !next.startsWith('//') ? next : '/styles';
+  // Already signed in: go on. (A database outage must not hide the sign-in page.)
+  const user = await currentUser().catch(() => null);
+  if (user) redirect(safeNext);
   return (
     <main className="grid min-h-screen place-items-center px-4">
       <div className="w-full max-w-sm">
