@@ -7,6 +7,11 @@ const verbs: Record<string, string> = {
   'style.share': 'Shared with',
   'style.unshare': 'Stopped sharing',
   'body-map.save': 'Saved the body map',
+  'colourway.create': 'Created the colourway',
+  'colourway.update': 'Edited the colourway',
+  'colourway.archive': 'Archived the colourway',
+  'lab-dip.submit': 'Sent a lab dip for',
+  'lab-dip.decide': 'Decided on the lab dip',
   'fit.spec.save': 'Saved the size spec',
   'fit.factor': 'Changed the studio seamless factor',
   'fit.round.create': 'Recorded sample round',
@@ -33,6 +38,7 @@ export function describeAudit(action: string, details: Record<string, unknown>):
   if (action === 'style.update') return `${verb}: ${Object.keys(details).join(', ') || 'no fields'}`;
   if (action === 'style.share') return `${verb} ${String(details.organisation ?? '')}`;
   if (action === 'body-map.save' && typeof details.zones === 'number') return `${verb} (${details.zones} zones)`;
+  if (action.startsWith('colourway.') || action.startsWith('lab-dip.')) return describeColour(action, verb, details);
   if (action.startsWith('fit.')) return describeFit(action, verb, details);
   if (/^(style\.release|proposal\.|test-knit\.|mill-pack\.|file\.|mail\.)/.test(action)) return describeMill(action, verb, details);
   return verb;
@@ -64,6 +70,22 @@ function describeMill(action: string, verb: string, d: Record<string, unknown>):
     default:
       return `${verb} ${rev}`.trim();
   }
+}
+
+/** Colourway and lab-dip entries: which colourway, target and dip, and the decision. */
+function describeColour(action: string, verb: string, d: Record<string, unknown>): string {
+  const text = (v: unknown) => (typeof v === 'string' ? v : '');
+  if (action === 'lab-dip.submit') {
+    const dE = typeof d.deltaE === 'number' ? `, ΔE ${d.deltaE.toFixed(2)}` : '';
+    return `${verb} ${text(d.colourway)} / ${text(d.target)} (#${String(d.sequence ?? '?')}${dE})`;
+  }
+  if (action === 'lab-dip.decide') {
+    const decision = d.decision === 'approved' ? 'Approved' : d.decision === 'rejected' ? 'Rejected' : verb;
+    const comment = text(d.comment) ? `: ${text(d.comment)}` : '';
+    return `${decision} the lab dip ${text(d.colourway)} / ${text(d.target)} #${String(d.sequence ?? '?')}${comment}`;
+  }
+  const targets = Array.isArray(d.targets) ? ` (${d.targets.length} target${d.targets.length === 1 ? '' : 's'})` : '';
+  return `${verb} ${text(d.name)}${targets}`;
 }
 
 /** Size spec, sample-round and correction entries: which points, which round, from what to what (cm). */

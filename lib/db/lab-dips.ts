@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { db, type Db } from './knex';
 import type { SessionUser } from './users';
+import { isOutsideRole } from '@/lib/auth/roles';
 import { findStyle } from './styles';
 import { colourStandardsByIds } from './colour-standards';
 import { studioColourSettings } from './colourways';
@@ -36,6 +37,8 @@ export interface LabDip {
   decidedByName: string | null;
   decidedAt: string | null;
   decisionComment: string;
+  /** A photo of the dip (download through /api/files/[id]); null when none, and for client reviewers. */
+  photoFileId: string | null;
   version: number;
   /** ΔE CMC(2:1), ΔE00, ΔL/ΔC/ΔH and their words, against `targetLab`. */
   reading: LabDipReading;
@@ -46,9 +49,10 @@ interface LabDipRow {
   sequence: number; organisation_name: string | null; submitted_by_name: string | null; submitted_at: Date;
   readings: Lab[]; lab_l: number; lab_a: number; lab_b: number; target_lab: Lab; tolerance: LabDipTolerance; comment: string;
   status: LabDipStatus; decided_by_name: string | null; decided_at: Date | null; decision_comment: string; version: number;
+  photo_file_id: string | null;
 }
 
-function toLabDip(r: LabDipRow): LabDip {
+function toLabDip(r: LabDipRow, user: SessionUser): LabDip {
   const measured = { L: r.lab_l, a: r.lab_a, b: r.lab_b };
   return {
     id: r.id,
@@ -70,6 +74,7 @@ function toLabDip(r: LabDipRow): LabDip {
     decidedByName: r.decided_by_name,
     decidedAt: r.decided_at ? r.decided_at.toISOString() : null,
     decisionComment: r.decision_comment,
+    photoFileId: user.role === 'client' ? null : r.photo_file_id,
     version: r.version,
     reading: readLabDip(r.target_lab, measured, r.tolerance),
   };
@@ -103,7 +108,7 @@ export async function listLabDips(user: SessionUser, styleId: string, filter: { 
   const qb = visibleDips(user, styleId, q);
   if (filter.colourwayId) qb.andWhere('d.colourway_id', filter.colourwayId);
   const rows = (await qb.orderBy([{ column: 'd.submitted_at', order: 'desc' }, { column: 'd.sequence', order: 'desc' }])) as LabDipRow[];
-  return rows.map(toLabDip);
+  return rows.map((r) => toLabDip(r, user));
 }
 
 export async function findLabDip(user: SessionUser, styleId: string, labDipId: string, q: Db = db()): Promise<LabDip> {
@@ -111,7 +116,7 @@ export async function findLabDip(user: SessionUser, styleId: string, labDipId: s
   if (!style) throw notFound('Style not found.');
   const row = (await visibleDips(user, styleId, q).andWhere('d.id', labDipId).first()) as LabDipRow | undefined;
   if (!row) throw notFound('Lab dip not found.');
-  return toLabDip(row);
+  return toLabDip(row, user);
 }
 
 /**
@@ -145,6 +150,15 @@ export async function submitLabDip(user: SessionUser, styleId: string, input: La
       targetLab = { L: target.lab_l ?? 0, a: target.lab_a ?? 0, b: target.lab_b ?? 0 };
       tolerance = (await studioColourSettings(user.studioId, trx)).tolerance;
     }
+    if (input.photoFileId) {
+      const photo = await trx('files')
+        .where({ id: input.photoFileId, studio_id: user.studioId, style_id: styleId, kind: 'photo' })
+        .modify((qb) => {
+          if (isOutsideRole(user.role)) qb.andWhere('organisation_id', user.organisationId ?? '');
+        })
+        .first('id');
+      if (!photo) throw new HttpError(400, 'Some fields need attention.', { fieldErrors: { photoFileId: ['Not a photo uploaded to this style'] } });
+    }
     const measured = meanLab(input.readings);
     const last = (await trx('lab_dips').where({ target_id: target.id }).max('sequence as max').first()) as { max: number | null } | undefined;
     const sequence = (last?.max ?? 0) + 1;
@@ -163,6 +177,7 @@ export async function submitLabDip(user: SessionUser, styleId: string, input: La
         target_lab: JSON.stringify(targetLab),
         tolerance: JSON.stringify(tolerance),
         comment: input.comment,
+        photo_file_id: input.photoFileId,
       })
       .returning('id')) as [{ id: string }];
     const reading = readLabDip(targetLab, measured, tolerance);
@@ -170,7 +185,7 @@ export async function submitLabDip(user: SessionUser, styleId: string, input: La
       studio_id: user.studioId, style_id: styleId, user_id: user.id, action: 'lab-dip.submit',
       details: JSON.stringify({
         labDipId: row.id, colourway: target.colourway_name, target: target.name, sequence,
-        readings: input.readings.length, deltaE: Number(reading.deltaE.toFixed(2)), pass: reading.pass,
+        readings: input.readings.length, deltaE: Number(reading.deltaE.toFixed(2)), pass: reading.pass, photo: input.photoFileId !== null,
       }),
     });
     return row.id;

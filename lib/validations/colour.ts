@@ -22,7 +22,7 @@ const num = (what: string, min: number, max: number) =>
       .refine((n) => n <= max, { message: `${what} must be at most ${max}` }),
   );
 
-const uuid = (what: string) => z.string({ error: `${what} is required` }).uuid(`${what} is not a valid id`);
+const uuid = (what: string) => z.string({ error: `${what} is required` }).min(1, `${what} is required`).uuid(`${what} is not a valid id`);
 const version = z.number({ error: 'The version you edited is required' }).int().positive('The version you edited is required');
 
 /** A CIELAB colour, D65 / 10° (the same ranges as yarn colours in the library). */
@@ -133,26 +133,31 @@ const colourwayName = z
 const targetsSchema = z
   .array(colourwayTargetSchema)
   .max(12, 'At most 12 targets in a colourway')
-  .superRefine((targets, ctx) => {
-    const owner = new Map<string, number>();
-    const names = new Map<string, number>();
-    targets.forEach((t, i) => {
-      t.yarnIds.forEach((y) => {
-        const before = owner.get(y);
-        if (before !== undefined && before !== i) {
-          ctx.addIssue({ code: 'custom', path: [i, 'yarnIds'], message: `A yarn takes one target; it is already in target ${before + 1}` });
+  // Runs even when a target has other problems, so every field error shows at once.
+  .superRefine(
+    (targets, ctx) => {
+      const owner = new Map<string, number>();
+      const names = new Map<string, number>();
+      targets.forEach((t, i) => {
+        if (!t || typeof t !== 'object') return;
+        (Array.isArray(t.yarnIds) ? t.yarnIds : []).forEach((y) => {
+          const before = owner.get(y);
+          if (before !== undefined && before !== i) {
+            ctx.addIssue({ code: 'custom', path: [i, 'yarnIds'], message: `A yarn takes one target; it is already in target ${before + 1}` });
+          }
+          owner.set(y, before ?? i);
+        });
+        const key = typeof t.name === 'string' ? t.name.trim().toLowerCase() : '';
+        const seen = names.get(key);
+        if (key && seen !== undefined) ctx.addIssue({ code: 'custom', path: [i, 'name'], message: 'Two targets have this name' });
+        else if (key) names.set(key, i);
+        if (t.id && targets.findIndex((x) => x?.id === t.id) !== i) {
+          ctx.addIssue({ code: 'custom', path: [i, 'id'], message: 'This target is listed twice' });
         }
-        owner.set(y, before ?? i);
       });
-      const key = t.name.toLowerCase();
-      const seen = names.get(key);
-      if (seen !== undefined) ctx.addIssue({ code: 'custom', path: [i, 'name'], message: 'Two targets have this name' });
-      else names.set(key, i);
-      if (t.id && targets.findIndex((x) => x.id === t.id) !== i) {
-        ctx.addIssue({ code: 'custom', path: [i, 'id'], message: 'This target is listed twice' });
-      }
-    });
-  });
+    },
+    { when: (payload) => Array.isArray(payload.value) },
+  );
 
 export const colourwayInputSchema = z
   .object({
@@ -178,13 +183,16 @@ export type ColourwayPatch = z.infer<typeof colourwayPatchSchema>;
 
 /**
  * A lab-dip submission: the target it matches, and the measured colour, either entered as one
- * reading or as CSV text of several readings (their mean is the measured colour).
+ * reading or as CSV text of several readings (their mean is the measured colour); optionally a
+ * photo of the dip, uploaded to the style beforehand.
  */
 export const labDipInputSchema = z
   .object({
     targetId: uuid('The target'),
     measured: labSchema.optional(),
     readingsCsv: z.string().max(20_000, 'The readings are too long for one lab dip').optional(),
+    /** A photo uploaded to the style first (POST /api/styles/[id]/files), by its file id. */
+    photoFileId: uuid('The photo').optional(),
     comment: z.string().trim().max(1000, 'A comment is at most 1000 characters').default(''),
   })
   .strict()
@@ -207,7 +215,7 @@ export const labDipInputSchema = z
   })
   .transform((v) => {
     const readings = v.measured ? [v.measured] : parseLabReadings(v.readingsCsv ?? '').readings;
-    return { targetId: v.targetId, readings, comment: v.comment };
+    return { targetId: v.targetId, readings, comment: v.comment, photoFileId: v.photoFileId ?? null };
   });
 export type LabDipInput = z.output<typeof labDipInputSchema>;
 export { readingLimits };
