@@ -24,6 +24,19 @@ mkdir -p .data
 export SESSION_SECRET="$(cat .data/session-secret)"
 export NEEDLEMAP_DEV_PAGES=true
 
+# The local S3 and SMTP fakes, in the background; they stop when this process (the app server
+# after the exec below) ends. Files go to .data/s3, caught e-mails to .data/mail (see /dev/mail).
+S3_PORT="${NEEDLEMAP_S3_PORT:-4569}"
+SMTP_PORT_LOCAL="${NEEDLEMAP_SMTP_PORT:-2525}"
+node --import tsx fakes/start.ts --s3-port "$S3_PORT" --smtp-port "$SMTP_PORT_LOCAL" \
+  --s3-dir .data/s3 --mail-dir .data/mail --parent-pid $$ > .data/fakes.log 2>&1 &
+for _ in $(seq 1 60); do grep -q '"smtpPort"' .data/fakes.log 2>/dev/null && break; sleep 0.5; done
+grep -q '"smtpPort"' .data/fakes.log || { echo "The local S3/SMTP fakes did not start:" >&2; cat .data/fakes.log >&2; exit 1; }
+export S3_ENDPOINT="http://127.0.0.1:$S3_PORT" S3_BUCKET=needlemap-files S3_REGION=us-east-1 S3_FORCE_PATH_STYLE=true
+export S3_ACCESS_KEY_ID=S3RVER S3_SECRET_ACCESS_KEY=S3RVER
+export SMTP_HOST=127.0.0.1 SMTP_PORT="$SMTP_PORT_LOCAL" SMTP_IGNORE_TLS=true NEEDLEMAP_MAIL_DIR="$PWD/.data/mail"
+export APP_URL="${APP_URL:-http://127.0.0.1:${PORT:-3000}}"
+
 npx next build
 echo
 echo "Needlemap is starting at http://127.0.0.1:3000  (demo accounts: see README.md)"

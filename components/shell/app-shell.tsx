@@ -2,6 +2,7 @@ import Link from 'next/link';
 import { NeedlemapMark } from './mark';
 import { SignOutButton } from './sign-out-button';
 import { NavLink } from './nav-link';
+import { env } from '@/lib/env';
 import { can, isOutsideRole, roleLabels } from '@/lib/auth/roles';
 import type { SessionUser } from '@/lib/db/users';
 
@@ -19,6 +20,7 @@ export function AppShell({ user, children }: { user: SessionUser; children: Reac
             <NavLink href="/styles">{outside ? (user.role === 'mill' ? 'Released to you' : 'Shared with you') : 'Styles'}</NavLink>
             {can(user.role, 'library:read') ? <NavLink href="/library">Library</NavLink> : null}
             {can(user.role, 'members:manage') ? <NavLink href="/members">Members</NavLink> : null}
+            {!outside && env().devPages ? <NavLink href="/dev/mail">Mail (dev)</NavLink> : null}
           </nav>
           <div className="ml-auto flex items-center gap-3 text-sm">
             <div className="text-right leading-tight">

@@ -4,5 +4,7 @@ export const workspaceSections = [
   { slug: 'body-map', label: 'Body map' },
   { slug: 'colour', label: 'Colour' },
   { slug: 'fit', label: 'Fit' },
+  { slug: 'mill-pack', label: 'Mill pack' },
+  { slug: 'test-knits', label: 'Test knits' },
   { slug: 'history', label: 'History' },
 ] as const;

@@ -5,7 +5,7 @@
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { anonymous, as, accounts, Client, demoPassword, newStyleBody, styleByCode, type Account } from './helpers';
+import { anonymous, as, accounts, baseUrl, Client, demoPassword, newStyleBody, styleByCode, type Account } from './helpers';
 
 type Caller = 'anon' | 'admin' | 'designer' | 'colour-lead' | 'client' | 'mill';
 const callers: Caller[] = ['anon', 'admin', 'designer', 'colour-lead', 'client', 'mill'];
@@ -130,7 +130,145 @@ async function freshCorrection() {
   return { ...r, correctionId: fit.rounds[0].corrections[0].id as string, version: fit.version as number };
 }
 
+// The mill round: releases, client review, test knits, files, exports and mill packs.
+const tinyPng = Buffer.from(
+  'iVBORw0KGgoAAAANSUhEUgAAAAIAAAACCAIAAAD91JpzAAAAFklEQVR4nGP8z8DAwMDAxMDAwMDAAAANHQEDasKb6QAAAABJRU5ErkJggg==',
+  'base64',
+);
+
+let orgIds: Promise<{ quellmoor: string; varrow: string }> | null = null;
+function millAndClient() {
+  orgIds ??= (async () => {
+    const orgs = (await (await as('admin')).get('/api/organisations')).json.organisations as { id: string; name: string }[];
+    return { quellmoor: orgs.find((o) => o.name === 'Quellmoor Knitworks')!.id, varrow: orgs.find((o) => o.name === 'Varrow Sport')!.id };
+  })();
+  return orgIds;
+}
+
+/** A fresh style with one texture, released to the demo mill, with the demo client asked to review it. */
+async function freshRelease() {
+  const designer = await as('designer');
+  const s = await freshStyle();
+  const textures = (await designer.get('/api/library/textures')).json.textures as { id: string }[];
+  const put = await designer.put(`/api/styles/${s.id}/textures`, { version: s.version, textureIds: [textures[0]!.id] });
+  const { quellmoor, varrow } = await millAndClient();
+  const rel = await designer.post(`/api/styles/${s.id}/releases`, { version: put.json.version, millIds: [quellmoor] });
+  const releaseId = rel.json.release.id as string;
+  await designer.post(`/api/releases/${releaseId}/reviews`, { clientId: varrow });
+  return { styleId: s.id, releaseId };
+}
+
+let sharedRelease: ReturnType<typeof freshRelease> | null = null;
+const theRelease = () => (sharedRelease ??= freshRelease());
+
+async function postForm(c: Client, path: string, form: FormData) {
+  const res = await fetch(baseUrl() + path, { method: 'POST', body: form, headers: c.cookie ? { cookie: c.cookie } : {} });
+  return { status: res.status };
+}
+
+function knitForm() {
+  const form = new FormData();
+  form.set('photo', new Blob([tinyPng], { type: 'image/png' }), 'knit.png');
+  form.set('walesPerCm', '20.5');
+  form.set('coursesPerCm', '28');
+  form.set('gsm', '180');
+  return form;
+}
+
+/** A test knit waiting for the mill (fresh per call). */
+async function freshTestKnit(knitted: boolean) {
+  const { releaseId } = await freshRelease();
+  const res = await (await as('designer')).post(`/api/releases/${releaseId}/test-knits`);
+  const knit = res.json.testKnits[0] as { id: string; version: number };
+  if (!knitted) return knit;
+  await postForm(await as('mill'), `/api/test-knits/${knit.id}/submission`, knitForm());
+  const after = (await (await as('designer')).get(`/api/releases/${releaseId}/test-knits`)).json.testKnits[0];
+  return after as { id: string; version: number };
+}
+
+const millRoundEntries: Record<string, Entry> = {
+  'GET /api/styles/[id]/releases': { expect: everyone(200), run: async (c) => c.get(`/api/styles/${(await theRelease()).styleId}/releases`) },
+  'POST /api/styles/[id]/releases': {
+    expect: editors(201),
+    run: async (c) => {
+      const designer = await as('designer');
+      const s = await freshStyle();
+      const textures = (await designer.get('/api/library/textures')).json.textures as { id: string }[];
+      const put = await designer.put(`/api/styles/${s.id}/textures`, { version: s.version, textureIds: [textures[0]!.id] });
+      return c.post(`/api/styles/${s.id}/releases`, { version: put.json.version ?? s.version, millIds: [(await millAndClient()).quellmoor] });
+    },
+  },
+  'GET /api/releases/[id]': { expect: everyone(200), run: async (c) => c.get(`/api/releases/${(await theRelease()).releaseId}`) },
+  'POST /api/releases/[id]/reviews': {
+    expect: editors(201),
+    run: async (c) => c.post(`/api/releases/${(await theRelease()).releaseId}/reviews`, { clientId: (await millAndClient()).varrow }),
+  },
+  'POST /api/releases/[id]/comments': {
+    expect: { anon: 401, admin: 201, designer: 201, 'colour-lead': 403, client: 201, mill: 403 },
+    run: async (c) => c.post(`/api/releases/${(await theRelease()).releaseId}/comments`, { body: 'Matrix comment' }),
+  },
+  'POST /api/releases/[id]/decision': {
+    expect: { anon: 401, admin: 403, designer: 403, 'colour-lead': 403, client: 200, mill: 403 },
+    run: async (c) => c.post(`/api/releases/${(await theRelease()).releaseId}/decision`, { decision: 'approved' }),
+  },
+  'GET /api/releases/[id]/test-knits': { expect: everyone(200), run: async (c) => c.get(`/api/releases/${(await theRelease()).releaseId}/test-knits`) },
+  'POST /api/releases/[id]/test-knits': { expect: editors(201), run: async (c) => c.post(`/api/releases/${(await theRelease()).releaseId}/test-knits`) },
+  'GET /api/styles/[id]/test-knits': { expect: everyone(200), run: async (c) => c.get(`/api/styles/${(await theRelease()).styleId}/test-knits`) },
+  'POST /api/test-knits/[id]/submission': {
+    expect: { anon: 401, admin: 403, designer: 403, 'colour-lead': 403, client: 403, mill: 200 },
+    run: async (c) => postForm(c, `/api/test-knits/${(await freshTestKnit(false)).id}/submission`, knitForm()),
+  },
+  'POST /api/test-knits/[id]/decision': {
+    expect: editors(200),
+    run: async (c) => {
+      const k = await freshTestKnit(true);
+      return c.post(`/api/test-knits/${k.id}/decision`, { version: k.version, decision: 'approved' });
+    },
+  },
+  'GET /api/styles/[id]/files': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/files`) },
+  'POST /api/styles/[id]/files': {
+    expect: { anon: 401, admin: 201, designer: 201, 'colour-lead': 403, client: 403, mill: 201 },
+    run: async (c, ctx) => {
+      const form = new FormData();
+      form.set('file', new Blob([tinyPng], { type: 'image/png' }), 'matrix.png');
+      return postForm(c, `/api/styles/${ctx.sharedStyleId}/files`, form);
+    },
+  },
+  'GET /api/files/[id]': {
+    // A file the mill uploaded: the studio and that mill read it; the client does not see it.
+    expect: { anon: 401, admin: 200, designer: 200, 'colour-lead': 200, client: 404, mill: 200 },
+    run: async (c, ctx) => {
+      const mill = await as('mill');
+      const form = new FormData();
+      form.set('file', new Blob([tinyPng], { type: 'image/png' }), 'mill.png');
+      const res = await fetch(baseUrl() + `/api/styles/${ctx.sharedStyleId}/files`, { method: 'POST', body: form, headers: { cookie: mill.cookie } });
+      const id = ((await res.json()) as { file: { id: string } }).file.id;
+      return c.get(`/api/files/${id}`);
+    },
+  },
+  'GET /api/styles/[id]/exports/[kind]': {
+    expect: { anon: 401, admin: 200, designer: 200, 'colour-lead': 200, client: 403, mill: 200 },
+    run: async (c) => c.get(`/api/styles/${(await theRelease()).styleId}/exports/yarn-list.csv`),
+  },
+  'POST /api/styles/[id]/mill-pack': {
+    expect: { anon: 401, admin: 202, designer: 202, 'colour-lead': 202, client: 403, mill: 202 },
+    run: async (c) => {
+      const r = await theRelease();
+      return c.post(`/api/styles/${r.styleId}/mill-pack`, { releaseId: r.releaseId, paper: 'a4' });
+    },
+  },
+  'GET /api/mill-pack-jobs/[id]': {
+    expect: { anon: 401, admin: 200, designer: 200, 'colour-lead': 200, client: 403, mill: 200 },
+    run: async (c) => {
+      const r = await theRelease();
+      const job = (await (await as('designer')).post(`/api/styles/${r.styleId}/mill-pack`, { releaseId: r.releaseId, paper: 'letter' })).json.job;
+      return c.get(`/api/mill-pack-jobs/${job.id}`);
+    },
+  },
+};
+
 export const matrix: Record<string, Entry> = {
+  ...millRoundEntries,
   'GET /api/health': {
     expect: { anon: 200, admin: 200, designer: 200, 'colour-lead': 200, client: 200, mill: 200 },
     run: (c) => c.get('/api/health'),
