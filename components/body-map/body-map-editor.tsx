@@ -133,7 +133,7 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, read
         </div>
       </div>
       <aside className="flex min-h-0 flex-col gap-4 overflow-y-auto pr-1">
-        <ZonePanel editor={editor} state={state} textures={textures} summary={summary} colourOf={colourOf} />
+        <ZonePanel editor={editor} state={state} textures={textures} summary={summary} colourOf={colourOf} styleId={styleId} />
         <SummaryPanel summary={summary} findings={findings} textures={textureMap} yarns={yarns} onFinding={onFinding} baseSize={baseSize} colourOf={colourOf} />
       </aside>
     </div>

@@ -5,10 +5,12 @@ import { zonesInDrawOrder, type Editor, type EditorState } from '@/lib/editor';
 import { zoneFunctionLabels, zoneFunctions, type Zone, type ZoneFunction } from '@/lib/knit/panel';
 import type { BodyMapSummary } from '@/lib/knit/summary';
 import type { LibraryTexture } from './body-map-editor';
+import type { Panel } from '@/lib/knit/panel';
+import { api, ApiError } from '@/lib/api/client';
 
 const fmt = new Intl.NumberFormat('en-GB');
 
-export function ZonePanel({ editor, state, textures, summary, colourOf }: { editor: Editor; state: EditorState; textures: LibraryTexture[]; summary: BodyMapSummary; colourOf: (id: string) => string }) {
+export function ZonePanel({ editor, state, textures, summary, colourOf, styleId }: { editor: Editor; state: EditorState; textures: LibraryTexture[]; summary: BodyMapSummary; colourOf: (id: string) => string; styleId: string }) {
   const selected = state.selection.zoneIds;
   const ro = state.readOnly;
   const textureName = (id: string) => textures.find((t) => t.id === id)?.name ?? 'Unknown texture';
@@ -27,9 +29,10 @@ export function ZonePanel({ editor, state, textures, summary, colourOf }: { edit
           const raster = summary.rasters.get(panel.id);
           return (
             <div key={panel.id} className="border-b border-rule/70 last:border-0">
-              <div className="flex items-center justify-between bg-paper/60 px-3 py-1 text-xs font-medium text-ink-soft">
+              <div className="flex items-center justify-between gap-2 bg-paper/60 px-3 py-1 text-xs font-medium text-ink-soft">
                 <span>{panel.name}</span>
-                <span className="figures text-ink-faint">{raster ? `${fmt.format(raster.inside)} st. kept` : ''}</span>
+                <span className="ml-auto figures text-ink-faint">{raster ? `${fmt.format(raster.inside)} st. kept` : ''}</span>
+                {!ro ? <OutlineUpload editor={editor} panel={panel} styleId={styleId} /> : null}
               </div>
               {zones.length === 0 ? <div className="px-3 py-1.5 text-xs text-ink-faint">Base texture only: {textureName(panel.baseTextureId)}</div> : null}
               <ul>
@@ -105,5 +108,37 @@ function ZoneInspector({ zone, editor, textures, readOnly }: { zone: Zone; edito
         </div>
       ) : null}
     </div>
+  );
+}
+
+/** Replaces a panel's cut lines with the outline of an SVG drawing (only its path geometry is used). */
+function OutlineUpload({ editor, panel, styleId }: { editor: Editor; panel: Panel; styleId: string }) {
+  const [error, setError] = useState<string | null>(null);
+  return (
+    <label className="cursor-pointer rounded border border-rule bg-panel px-1.5 py-0.5 font-normal text-ink-soft hover:text-ink" title={error ?? 'Replace the cut lines with the outline of an SVG drawing'}>
+      {error ? <span className="text-madder-700">Outline refused</span> : 'Outline from SVG…'}
+      <input
+        type="file"
+        accept=".svg,image/svg+xml"
+        className="sr-only"
+        aria-label={`Upload an SVG outline for ${panel.name}`}
+        onChange={async (e) => {
+          const file = e.target.files?.[0];
+          e.target.value = '';
+          if (!file) return;
+          setError(null);
+          if (file.size > 1_000_000) { setError('The drawing is larger than 1 MB.'); return; }
+          try {
+            const { polygon } = await api<{ polygon: Panel['cutOutline'] }>(`/api/styles/${styleId}/body-map/outline`, {
+              method: 'POST',
+              json: { svg: await file.text(), widthNeedles: panel.widthNeedles, heightCourses: panel.heightCourses },
+            });
+            editor.replaceOutline(panel.id, polygon);
+          } catch (err) {
+            setError(err instanceof ApiError ? err.message : 'The outline could not be read.');
+          }
+        }}
+      />
+    </label>
   );
 }

@@ -363,6 +363,19 @@ export function setCutOutline(doc: BodyMapDocument, panelId: string, outline: St
   });
 }
 
+/**
+ * The document with a panel's cut lines replaced by `outline`. A fashioned (flat-knit) panel, whose
+ * knitted area is its outline, gets the same knitted area.
+ */
+export function replaceOutline(doc: BodyMapDocument, panelId: string, outline: StitchPolygon): BodyMapDocument {
+  return updatePanel(doc, panelId, (panel) => {
+    const clamped = clampPolygonToPanel(outline, panel);
+    if (!isSimplePolygon(clamped) || samePolygon(clamped, panel.cutOutline)) return panel;
+    const fashioned = samePolygon(panel.knittedArea, panel.cutOutline);
+    return { ...panel, cutOutline: clamped, ...(fashioned ? { knittedArea: clamped } : {}) };
+  });
+}
+
 /** Whether the document has a panel with this id (guards commands coming from the view). */
 export function hasPanel(doc: BodyMapDocument, panelId: string): boolean {
   return findPanel(doc, panelId) !== null;

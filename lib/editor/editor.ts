@@ -4,7 +4,7 @@
  * forwards pointer, key and wheel events, and calls the commands from its buttons and zone list.
  * Listeners hear once per event or command, and only when the state changed.
  */
-import type { Panel, ScreenPoint, StitchPoint, ZoneFunction } from '@/lib/knit/panel';
+import type { StitchPolygon, Panel, ScreenPoint, StitchPoint, ZoneFunction } from '@/lib/knit/panel';
 import {
   fitCamera,
   layoutOf,
@@ -681,6 +681,11 @@ export class Editor {
   }
 
   /** Move one point of a panel's cut outline (refused if the outline would cross itself). */
+  /** Replace a panel's cut lines (e.g. from an uploaded outline); a fashioned panel's knitted area follows. */
+  replaceOutline(panelId: string, outline: StitchPolygon): boolean {
+    return this.batch(() => this.change('Replace cut lines', (doc) => cmd.replaceOutline(doc, panelId, outline)));
+  }
+
   moveOutlinePoint(panelId: string, index: number, point: StitchPoint): boolean {
     return this.batch(() => this.change('Move cut-line point', (doc) => cmd.moveOutlineVertex(doc, panelId, index, point)));
   }

@@ -126,3 +126,21 @@ describe('body map API', () => {
     expect((await (await as('mill')).get(`/api/styles/${notShared.id}/body-map`)).status).toBe(404);
   });
 });
+
+describe('outline upload', () => {
+  it('turns an SVG outline into a polygon filling the panel, and refuses a non-SVG with a clear 400', async () => {
+    const { designer, style } = await freshMap();
+    const ok = await designer.post(`/api/styles/${style.id}/body-map/outline`, {
+      svg: '<svg viewBox="0 0 100 200"><script>alert(1)</script><path d="M0 20 Q50 0 100 20 L100 200 L0 200 Z"/></svg>',
+      widthNeedles: 616, heightCourses: 1740,
+    });
+    expect(ok.status).toBe(200);
+    expect(Math.max(...ok.json.polygon.map((p: any) => p.x))).toBe(616);
+    expect(Math.max(...ok.json.polygon.map((p: any) => p.y))).toBe(1740);
+    const bad = await designer.post(`/api/styles/${style.id}/body-map/outline`, { svg: '<html>nope</html>', widthNeedles: 616, heightCourses: 1740 });
+    expect(bad.status).toBe(400);
+    expect(bad.json.error).toMatch(/not an SVG/);
+    const huge = await designer.post(`/api/styles/${style.id}/body-map/outline`, { svg: `<svg>${'x'.repeat(1_000_100)}</svg>`, widthNeedles: 616, heightCourses: 1740 });
+    expect(huge.status).toBe(400);
+  });
+});

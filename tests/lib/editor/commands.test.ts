@@ -301,3 +301,18 @@ describe('revision and dirty state', () => {
     expect(t.editor.undo()).toBe(false);
   });
 });
+
+describe('replace outline', () => {
+  it('replaces the cut lines in one undoable step and refuses a crossing outline', () => {
+    const t = setup();
+    const panelId = t.state.doc.panels[0]!.id;
+    const before = t.state.doc.panels[0]!.cutOutline;
+    const outline = [{ x: 10, y: 0 }, { x: 200, y: 0 }, { x: 230, y: 300 }, { x: 0, y: 300 }];
+    expect(t.editor.replaceOutline(panelId, outline)).toBe(true);
+    expect(t.state.doc.panels[0]!.cutOutline).toEqual(outline);
+    t.editor.undo();
+    expect(t.state.doc.panels[0]!.cutOutline).toEqual(before);
+    // A crossing outline is refused.
+    expect(t.editor.replaceOutline(panelId, [{ x: 0, y: 0 }, { x: 100, y: 100 }, { x: 100, y: 0 }, { x: 0, y: 100 }])).toBe(false);
+  });
+});
