@@ -315,6 +315,21 @@ export const matrix: Record<string, Entry> = {
       return c.delete(`/api/styles/${s.id}/shares/${ctx.kestenholmId}`);
     },
   },
+  'GET /api/styles/[id]/body-map': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/body-map`) },
+  'PUT /api/styles/[id]/body-map': {
+    expect: editors(200),
+    run: async (c) => {
+      const s = await freshStyle();
+      const map = (await (await as('designer')).get(`/api/styles/${s.id}/body-map`)).json;
+      return c.put(`/api/styles/${s.id}/body-map`, { version: map.version, panels: map.panels });
+    },
+  },
+  'POST /api/styles/[id]/body-map/outline': {
+    expect: editors(200),
+    run: (c, ctx) => c.post(`/api/styles/${ctx.sharedStyleId}/body-map/outline`, {
+      svg: '<svg viewBox="0 0 10 20"><polygon points="0,0 10,0 10,20 0,20"/></svg>', widthNeedles: 600, heightCourses: 1200,
+    }),
+  },
   'GET /api/organisations': { expect: staffOnly(200), run: (c) => c.get('/api/organisations') },
   'GET /api/members': { expect: adminOnly(200), run: (c) => c.get('/api/members') },
   'POST /api/members': {
