@@ -41,7 +41,7 @@ function PressureChart({ size, rows, band, scaleMax }: { size: string; rows: Siz
           {t % 10 === 0 ? <text x={x(t)} y={h - 2} textAnchor="middle" fontSize={9} fill="var(--color-ink-faint)" fontFamily="var(--font-figures)">{t}</text> : null}
         </g>
       ))}
-      <text x={w - right + 6} y={h - 2} fontSize={9} fill="var(--color-ink-faint)">mmHg</text>
+      <text x={left - 6} y={h - 2} textAnchor="end" fontSize={9} fill="var(--color-ink-faint)">mmHg</text>
       {rows.map((g, i) => {
         const y = top + i * rowH;
         const p = g.estimate.pressureMmHg;

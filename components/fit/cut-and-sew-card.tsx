@@ -34,6 +34,7 @@ export function CutAndSewCard({
   factorError: string | null;
 }) {
   const [factorText, setFactorText] = useState<string | null>(null);
+  const [open, setOpen] = useState(false);
   const columns: GridColumn[] = sizes.map((s) => ({ id: sizeCol(s), header: s, accent: s === spec.baseSize }));
   const rows: GridRow[] = points.flatMap((point) => {
     const label = pointsOfMeasure[point].label;
@@ -66,13 +67,21 @@ export function CutAndSewCard({
     ];
   });
   const hasEntries = Object.values(spec.cutAndSew).some((v) => v && Object.keys(v).length > 0);
+  const shown = open || hasEntries;
   const parsed = factorText === null ? factor.factor : Number(factorText.replace(',', '.'));
   const factorValid = Number.isFinite(parsed) && parsed >= 0.5 && parsed <= 1.2;
   return (
     <Card
       title={`Cut-and-sew → seamless · ${unit}`}
-      actions={readOnly ? null : <Button size="sm" onClick={onUseEquivalents} disabled={!hasEntries}>Use seamless values in the spec</Button>}
+      actions={
+        !shown ? (
+          readOnly ? null : <Button size="sm" onClick={() => setOpen(true)}>Enter cut-and-sew measurements</Button>
+        ) : readOnly ? null : (
+          <Button size="sm" onClick={onUseEquivalents} disabled={!hasEntries}>Use seamless values in the spec</Button>
+        )
+      }
     >
+      {shown ? (
       <SpecGrid
         label="Cut-and-sew entries"
         rowHeader="Half-width"
@@ -83,6 +92,9 @@ export function CutAndSewCard({
         onPaste={(rowId, colId, grid) => onPaste(rowId, colId, grid, columns.map((c) => c.id), rows.map((r) => r.id))}
         testId="cut-and-sew"
       />
+      ) : (
+        <p className="text-sm text-ink-soft">Half-widths of a cut-and-sew garment known to fit, converted to their seamless equivalent. None entered.</p>
+      )}
       <div className="mt-3 flex flex-wrap items-end gap-3 border-t border-rule pt-3">
         <label className="text-xs text-ink-soft">
           <span className="mb-1 block font-medium">Studio factor (seamless ÷ cut-and-sew)</span>

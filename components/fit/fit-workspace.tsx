@@ -18,6 +18,7 @@ import { FitSettingsCard } from './fit-settings-card';
 import { NeedlesCard } from './needles-card';
 import { CompressionCard } from './compression-card';
 import { SampleRoundsCard } from './sample-rounds-card';
+import { SummaryCard } from './summary-card';
 import {
   applySeamlessEquivalents, changeBaseSize, editCutAndSewCell, editGirthCell, editSpecCell, pasteBlock, regradeAll, type Edit,
 } from './spec-edit';
@@ -230,7 +231,7 @@ export function FitWorkspace({ styleId, initial, readOnly }: { styleId: string; 
               applyPaste(pasteBlock(spec, grid, { rowId: row, colId }, rowIds, colIds, (s, r, c, raw) => editSpecCell(s, sizes, unit, r as PointKey, c, raw)))}
             onClearRow={(point) => change({ ...spec, points: spec.points.map((p) => (p.point === point ? { ...p, overrides: {} } : p)) })}
           />
-          <div className="grid grid-cols-1 gap-4 2xl:grid-cols-2">
+          <div className={`grid grid-cols-1 gap-4 ${doc.construction === 'seamless' ? '2xl:grid-cols-2' : ''}`}>
             <GirthsCard
               spec={spec}
               sizes={sizes}
@@ -241,7 +242,7 @@ export function FitWorkspace({ styleId, initial, readOnly }: { styleId: string; 
               onPaste={(row, colId, grid, colIds, rowIds) =>
                 applyPaste(pasteBlock(spec, grid, { rowId: row, colId }, rowIds, colIds, (s, r, c, raw) => editGirthCell(s, unit, r as GirthKey, c, raw)))}
             />
-            <CutAndSewCard
+            {doc.construction === 'seamless' ? <CutAndSewCard
               spec={spec}
               sizes={sizes}
               points={halfWidthPoints}
@@ -255,7 +256,7 @@ export function FitWorkspace({ styleId, initial, readOnly }: { styleId: string; 
               onSaveFactor={saveFactor}
               factorBusy={factorBusy}
               factorError={factorError}
-            />
+            /> : null}
           </div>
           <NeedlesCard
             machine={doc.machine}
@@ -277,6 +278,7 @@ export function FitWorkspace({ styleId, initial, readOnly }: { styleId: string; 
           />
         </div>
         <aside className="space-y-4 xl:sticky xl:top-28 xl:self-start">
+          <SummaryCard sizes={sizes} seamless={computed.seamless} flat={computed.flat} pressure={computed.pressure} />
           <FitSettingsCard spec={spec} textures={doc.textures} readOnly={readOnly} construction={doc.construction} onChange={change} />
         </aside>
       </div>

@@ -10,8 +10,10 @@ import type { MachineSetup } from '@/lib/validations/style';
 import { Card, Notice } from '@/components/ui/card';
 import { int, len, signedLen, signedPct } from './format';
 
-const th = 'whitespace-nowrap border-b border-rule-strong bg-paper px-2 py-1.5 text-right text-xs font-medium text-ink-soft';
-const td = 'figures whitespace-nowrap border-b border-rule px-2 py-1 text-right tabular-nums';
+const thBase = 'whitespace-nowrap border-b border-rule-strong bg-paper px-1.5 py-1.5 text-xs font-medium text-ink-soft';
+const th = `${thBase} text-right`;
+const thLeft = `${thBase} text-left`;
+const td = 'figures whitespace-nowrap border-b border-rule px-1.5 py-1 text-right tabular-nums';
 
 function Residual({ cm, unit, toleranceCm }: { cm: number; unit: LengthUnit; toleranceCm?: number }) {
   const tone = toleranceCm !== undefined && Math.abs(cm) > toleranceCm ? 'text-madder-700' : 'text-ink-soft';
@@ -61,23 +63,21 @@ function SeamlessTable({ rows, unit, textures, tolerances, machineDiameter }: {
       <table className="w-full border-separate border-spacing-0 text-sm" data-testid="needles-table">
         <thead>
           <tr>
-            <th className={`${th} text-left`}>Size</th>
-            <th className={`${th} text-left`}>Point</th>
+            <th className={thLeft}>Size · point</th>
             <th className={th}>Target ½W</th>
             <th className={th} title="Needles across the half-width at the base texture’s density: half the tube">Needles ½W</th>
-            <th className={`${th} border-l border-rule`}>Relaxed ½W</th>
-            <th className={th}>Residual</th>
+            <th className={`${th} border-l border-rule`} title="Relaxed half-width on the size’s cylinder at the base density, and relaxed minus target">On the size cylinder</th>
             <th className={`${th} border-l border-rule`} title="Relaxed wales per cm that reach the target on the size’s cylinder">Wales/cm to reach</th>
             <th className={th} title="Courses per cm and loop length at that density, if the structure keeps its loop shape">Courses/cm · loop</th>
-            <th className={`${th} text-left`}>Structure near it</th>
-            <th className={`${th} border-l border-rule`}>Nearest cylinder alone</th>
+            <th className={thLeft} title="A texture of the style within 5 % of that density">Texture near it</th>
+            <th className={`${th} border-l border-rule`} title="The available cylinder nearest this point on its own">Nearest alone</th>
           </tr>
         </thead>
         <tbody>
           {rows.map((r) => (
             <Fragment key={r.size}>
               <tr className="bg-paper/60">
-                <td colSpan={10} className="border-b border-rule px-2 py-1.5 text-xs">
+                <td colSpan={8} className="border-b border-rule px-2 py-1.5 text-xs">
                   <span className="figures mr-2 inline-block min-w-8 rounded bg-ink px-1.5 py-0.5 text-center font-semibold text-white">{r.size}</span>
                   {r.cylinder ? (
                     <span data-testid={`cylinder-${r.size}`}>
@@ -94,7 +94,7 @@ function SeamlessTable({ rows, unit, textures, tolerances, machineDiameter }: {
                   {r.lengths.length ? (
                     <div className="mt-0.5 pl-10 text-2xs text-ink-faint">
                       Courses: {r.lengths.map((l) => (
-                        <span key={l.point} className="mr-2 whitespace-nowrap">{pointsOfMeasure[l.point].label.toLowerCase()} <span className="figures text-ink-soft">{int.format(l.courses)}</span></span>
+                        <span key={l.point} className="mr-2 whitespace-nowrap">{pointsOfMeasure[l.point].label} <span className="figures text-ink-soft">{int.format(l.courses)}</span></span>
                       ))}
                     </div>
                   ) : null}
@@ -106,18 +106,16 @@ function SeamlessTable({ rows, unit, textures, tolerances, machineDiameter }: {
                 const d = p.onSizeCylinder;
                 return (
                   <tr key={p.point} data-testid={`needles-${r.size}-${p.point}`}>
-                    <td className="border-b border-rule px-2" />
-                    <th scope="row" className="whitespace-nowrap border-b border-rule px-2 py-1 text-left text-[13px] font-medium">{pointsOfMeasure[p.point].label}</th>
+                    <th scope="row" className="whitespace-nowrap border-b border-rule py-1 pl-12 pr-2 text-left text-[13px] font-medium">{pointsOfMeasure[p.point].label}</th>
                     <td className={td}>{len(p.targetHalfWidthCm, unit)}</td>
                     <td className={`${td} font-semibold`} data-testid="needles-across">{int.format(p.needlesAcrossHalfWidth)}</td>
-                    <td className={`${td} border-l border-rule`}>{len(d.halfWidthCm, unit)}</td>
-                    <td className={td}><Residual cm={d.residualCm} unit={unit} toleranceCm={tolerances[p.point]} /></td>
+                    <td className={`${td} border-l border-rule`}>{len(d.halfWidthCm, unit)} <span className="inline-block w-11"><Residual cm={d.residualCm} unit={unit} toleranceCm={tolerances[p.point]} /></span></td>
                     <td className={`${td} border-l border-rule`}>
                       {d.walesPerCm.toFixed(2)} <span className={Math.abs(d.change) > 0.1 ? 'text-madder-700' : 'text-ink-faint'}>({signedPct(d.change)})</span>
                     </td>
                     <td className={`${td} text-ink-soft`}>{d.coursesPerCm.toFixed(1)} · {signedPct(d.loopLengthChange)}</td>
-                    <td className="whitespace-nowrap border-b border-rule px-2 text-xs text-ink-soft">
-                      {nearClose ? <>{near.name} <span className="figures text-ink-faint">{near.walesPerCm}</span></> : <span className="text-ink-faint">—</span>}
+                    <td className="max-w-[10rem] truncate whitespace-nowrap border-b border-rule px-2 text-xs text-ink-soft" title={nearClose ? `${near.name}: ${near.walesPerCm} wales/cm` : undefined}>
+                      {nearClose ? <><span className="figures text-ink-faint">{near.walesPerCm}</span> {near.name}</> : <span className="text-ink-faint">—</span>}
                     </td>
                     <td className={`${td} border-l border-rule`}>
                       {p.nearest.diameterIn}″ <span className="text-ink-faint">{int.format(p.nearest.needles)}</span> <Residual cm={p.nearest.residualCm} unit={unit} />
@@ -144,8 +142,8 @@ function FlatTable({ rows, unit, tolerances }: { rows: FlatSizeNeedles[]; unit: 
       <table className="w-full border-separate border-spacing-0 text-sm" data-testid="needles-table">
         <thead>
           <tr>
-            <th className={`${th} text-left`}>Size</th>
-            <th className={`${th} text-left`}>Point</th>
+            <th className={thLeft}>Size</th>
+            <th className={thLeft}>Point</th>
             <th className={th}>Target</th>
             <th className={th}>Needles per course</th>
             <th className={th}>Relaxed width</th>

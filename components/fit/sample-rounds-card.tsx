@@ -62,7 +62,7 @@ export function SampleRoundsCard({
   blocked: string | null;
   onDoc: (doc: FitDocument) => void;
 }) {
-  const [mode, setMode] = useState<'round' | 'record' | 'compare'>(doc.rounds.length ? 'round' : readOnly ? 'round' : 'record');
+  const [mode, setMode] = useState<'round' | 'record' | 'compare'>('round');
   const [selected, setSelected] = useState<string | null>(doc.rounds.at(-1)?.id ?? null);
   const round = doc.rounds.find((r) => r.id === selected) ?? doc.rounds.at(-1) ?? null;
   const points = spec.points.map((p) => p.point);
@@ -93,7 +93,7 @@ export function SampleRoundsCard({
       ) : round ? (
         <RoundView key={round.id} doc={doc} round={round} spec={spec} unit={unit} readOnly={readOnly} disabled={!!blocked} onDoc={onDoc} />
       ) : (
-        <p className="text-sm text-ink-soft">No sample round recorded yet.</p>
+        <p className="text-sm text-ink-soft">No sample round recorded yet.{readOnly ? '' : ' When a proto, fit or pre-production sample comes back, record what it measured: each point is held against the spec and its tolerance.'}</p>
       )}
     </Card>
   );

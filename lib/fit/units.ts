@@ -22,10 +22,17 @@ export function toCm(value: number, unit: LengthUnit): number {
 /** Decimals a length is shown with: a millimetre in cm, a hundredth in inches. */
 export const unitDecimals: Record<LengthUnit, number> = { cm: 1, in: 2 };
 
-/** A cm value written in the display unit, or an empty string for none. */
-export function formatLength(cm: number | null | undefined, unit: LengthUnit, decimals = unitDecimals[unit]): string {
+/**
+ * A cm value written in the display unit, or an empty string for none. In cm a value that is not a
+ * whole millimetre (a grade of 1.25, say) shows its second decimal rather than being rounded away.
+ */
+export function formatLength(cm: number | null | undefined, unit: LengthUnit, decimals?: number): string {
   if (cm === null || cm === undefined || !Number.isFinite(cm)) return '';
-  return fromCm(cm, unit).toFixed(decimals);
+  const v = fromCm(cm, unit);
+  if (decimals !== undefined) return v.toFixed(decimals);
+  const d = unitDecimals[unit];
+  if (unit === 'cm' && Math.abs(Math.round(v * 10) - v * 10) > 1e-6 && Number(v.toFixed(2)) !== Number(v.toFixed(1))) return v.toFixed(2);
+  return v.toFixed(d);
 }
 
 const vulgar: Record<string, number> = { '¼': 0.25, '½': 0.5, '¾': 0.75, '⅛': 0.125, '⅜': 0.375, '⅝': 0.625, '⅞': 0.875 };

@@ -10,8 +10,12 @@ describe('cm and inches', () => {
     expect(fromCm(48.26, 'in')).toBeCloseTo(19, 9);
   });
 
-  it('shows cm to a millimetre and inches to a hundredth', () => {
-    expect(formatLength(31.04, 'cm')).toBe('31.0');
+  it('shows cm to a millimetre (a second decimal only when there is one) and inches to a hundredth', () => {
+    expect(formatLength(31, 'cm')).toBe('31.0');
+    expect(formatLength(19.75, 'cm')).toBe('19.75');
+    expect(formatLength(31.04, 'cm')).toBe('31.04');
+    expect(formatLength(31.0004, 'cm')).toBe('31.0');
+    expect(formatLength(31.04, 'cm', 1)).toBe('31.0');
     expect(formatLength(31.115, 'in')).toBe('12.25');
     expect(formatLength(null, 'cm')).toBe('');
   });
