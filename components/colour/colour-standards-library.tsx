@@ -9,7 +9,7 @@ import {
 } from '@tanstack/react-table';
 import type { z } from 'zod';
 import { api, ApiError } from '@/lib/api/client';
-import { labToSrgbHex } from '@/lib/colour/convert';
+import { inSrgbGamut, labToSrgbHex } from '@/lib/colour/convert';
 import type { Lab } from '@/lib/colour/lab';
 import type { LabDipTolerance } from '@/lib/colour/difference';
 import type { ColourStandard } from '@/lib/db/colour-standards';
@@ -49,7 +49,16 @@ const columns = [
     ),
   }),
   col.accessor((s) => s.lab.L, { id: 'lab', header: 'L* / a* / b*', cell: (c) => <span className="figures text-xs">{fmtLab(c.row.original.lab)}</span> }),
-  col.accessor((s) => labToSrgbHex(s.lab), { id: 'hex', header: 'Screen preview', cell: (c) => <span className="figures text-xs text-ink-soft">{c.getValue()}</span> }),
+  col.accessor((s) => labToSrgbHex(s.lab), {
+    id: 'hex',
+    header: 'Screen preview',
+    cell: (c) => (
+      <span className="leading-tight">
+        <span className="figures block text-xs text-ink-soft">{c.getValue()}</span>
+        {inSrgbGamut(c.row.original.lab) ? null : <span className="block text-2xs text-ochre-700">outside sRGB, clipped</span>}
+      </span>
+    ),
+  }),
   col.accessor((s) => shortSource[s.source], { id: 'source', header: 'Source' }),
   col.accessor((s) => s.tolerance.max, { id: 'tolerance', header: 'Accepts', cell: (c) => <span className="figures text-xs">{toleranceLabel(c.row.original.tolerance)}</span> }),
   col.accessor('updatedAt', { header: 'Updated', cell: (c) => <time className="figures text-xs text-ink-soft" dateTime={c.getValue()}>{c.getValue().slice(0, 10)}</time> }),
