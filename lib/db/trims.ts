@@ -2,10 +2,10 @@ import type { Knex } from 'knex';
 import { db, type Db } from './knex';
 import type { SessionUser } from './users';
 import { findStyle } from './styles';
-import { conflict, notFound } from '@/lib/api/errors';
+import { conflict, HttpError, notFound } from '@/lib/api/errors';
 import type { PanelKind } from '@/lib/knit/panel';
 import type { StitchBox, Trim, TrimKind, TrimMethod } from '@/lib/rules/trim';
-import type { TrimInput, TrimPatch } from '@/lib/validations/library';
+import { trimPairingErrors, type TrimInput, type TrimPatch } from '@/lib/validations/library';
 
 /**
  * A trim placed on a style. A style has one panel of each kind, so `panelKind` names the panel;
@@ -19,6 +19,8 @@ export interface StyleTrim {
   kind: TrimKind;
   method: TrimMethod;
   tempC: number | null;
+  /** Knitted logo: the finest line or gap of the artwork, mm. */
+  detailMm: number | null;
   box: StitchBox;
   version: number;
   createdAt: string;
@@ -27,13 +29,13 @@ export interface StyleTrim {
 
 interface TrimRow {
   id: string; style_id: string; panel_kind: PanelKind; name: string; kind: TrimKind; method: TrimMethod;
-  temp_c: number | null; box: StitchBox; version: number; created_at: Date; updated_at: Date;
+  temp_c: number | null; detail_mm: number | null; box: StitchBox; version: number; created_at: Date; updated_at: Date;
 }
 
 function toTrim(r: TrimRow): StyleTrim {
   return {
     id: r.id, styleId: r.style_id, panelKind: r.panel_kind, name: r.name, kind: r.kind, method: r.method, tempC: r.temp_c,
-    box: r.box, version: r.version, createdAt: r.created_at.toISOString(), updatedAt: r.updated_at.toISOString(),
+    detailMm: r.detail_mm, box: r.box, version: r.version, createdAt: r.created_at.toISOString(), updatedAt: r.updated_at.toISOString(),
   };
 }
 
@@ -41,9 +43,11 @@ function toTrim(r: TrimRow): StyleTrim {
 export function toRuleTrim(trim: StyleTrim, panelIdByKind: ReadonlyMap<PanelKind, string>): Trim | undefined {
   const panelId = panelIdByKind.get(trim.panelKind);
   if (!panelId) return undefined;
-  return trim.tempC === null
-    ? { id: trim.id, panelId, kind: trim.kind, method: trim.method, box: trim.box }
-    : { id: trim.id, panelId, kind: trim.kind, method: trim.method, tempC: trim.tempC, box: trim.box };
+  const out: Trim = { id: trim.id, panelId, kind: trim.kind, method: trim.method, box: trim.box };
+  if (trim.name) out.name = trim.name;
+  if (trim.tempC !== null) out.tempC = trim.tempC;
+  if (trim.detailMm !== null) out.detailMm = trim.detailMm;
+  return out;
 }
 
 async function visibleStyleOr404(user: SessionUser, styleId: string, q: Db) {
@@ -65,7 +69,7 @@ export async function createTrim(user: SessionUser, styleId: string, input: Trim
     const [row] = (await trx('trims')
       .insert({
         style_id: styleId, panel_kind: input.panelKind, name: input.name, kind: input.kind, method: input.method,
-        temp_c: input.tempC, box: JSON.stringify(input.box), created_by: user.id,
+        temp_c: input.tempC, detail_mm: input.detailMm, box: JSON.stringify(input.box), created_by: user.id,
       })
       .returning('*')) as [TrimRow];
     await trx('audit_log').insert({
@@ -84,7 +88,11 @@ export async function updateTrim(user: SessionUser, styleId: string, trimId: str
     if (!current) throw notFound('Trim not found.');
     const values: Record<string, unknown> = { version: trx.raw('version + 1'), updated_at: trx.fn.now() };
     const changed: string[] = [];
-    const map: [keyof TrimPatch, string][] = [['panelKind', 'panel_kind'], ['name', 'name'], ['kind', 'kind'], ['method', 'method'], ['tempC', 'temp_c']];
+    const pairing = trimPairingErrors({ kind: patch.kind ?? current.kind, method: patch.method ?? current.method });
+    if (Object.keys(pairing).length > 0) throw new HttpError(400, 'Some fields need attention.', { fieldErrors: pairing });
+    const map: [keyof TrimPatch, string][] = [
+      ['panelKind', 'panel_kind'], ['name', 'name'], ['kind', 'kind'], ['method', 'method'], ['tempC', 'temp_c'], ['detailMm', 'detail_mm'],
+    ];
     for (const [k, col] of map) {
       if (patch[k] !== undefined) { values[col] = patch[k]; changed.push(k); }
     }

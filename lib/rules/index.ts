@@ -9,6 +9,7 @@ import { checkCompressionElastane } from './compression-elastane';
 import { checkDyeClashes } from './dye-clash';
 import { checkFloats } from './floats';
 import { checkTrimHeat, checkTrimReheat, type TextureGrid } from './trim-heat';
+import { checkKnittedLogoDetail, checkTrimVentilation, type ZoneGrid } from './trim-placement';
 import type { Trim } from './trim';
 import { checkTuckStacks } from './tuck-stack';
 import { defaultRuleLimits, type RuleFinding, type RuleLimits, type RuleMachine, type RuleSeverity } from './types';
@@ -22,6 +23,7 @@ export { checkCompressionElastane } from './compression-elastane';
 export { checkDyeClashes } from './dye-clash';
 export { checkFloats } from './floats';
 export { checkTrimHeat, checkTrimReheat, texturesUnderBox, type TextureGrid } from './trim-heat';
+export { checkKnittedLogoDetail, checkTrimVentilation, stitchSizeMm, type ZoneGrid } from './trim-placement';
 export { checkTuckStacks } from './tuck-stack';
 export { checkYarnCount, styleYarnIds } from './yarn-count';
 export { checkZoneRepeats } from './zone-repeat';
@@ -36,8 +38,12 @@ export interface RulesInput {
   trims?: readonly Trim[];
   /** The colourway's dye plan, or what `planDyeing` needs to make it. */
   dye?: DyePlan | { targets: readonly DyeTarget[]; route: DyeRoute };
-  /** Rasters already drawn for the live summary, by panel id; drawn here when missing. */
-  rasters?: ReadonlyMap<string, TextureGrid>;
+  /**
+   * Rasters already drawn for the live summary, by panel id; drawn here when missing. The trim rules
+   * need the zone of every stitch: a panel with trims is drawn again with `zoneMap` unless its raster
+   * has `zoneCells`.
+   */
+  rasters?: ReadonlyMap<string, TextureGrid & { zoneCells?: Uint16Array }>;
 }
 
 const severityRank: Record<RuleSeverity, number> = { error: 0, warning: 1, info: 2 };
@@ -45,7 +51,8 @@ const severityRank: Record<RuleSeverity, number> = { error: 0, warning: 1, info:
 /**
  * Run every rule and return the findings, errors first, then by panel order. Rules: unknown
  * textures, distinct yarns against the machine, float length, tuck stacks, zone vs repeat, elastane
- * in compression zones, dye clashes, heat-applied trims (temperature, second application).
+ * in compression zones, dye clashes, heat-applied trims (temperature, second application), trims
+ * over ventilation zones, knitted logos finer than a stitch.
  */
 export function runRules(input: RulesInput): RuleFinding[] {
   const textures = textureMap(input.textures);
@@ -79,11 +86,25 @@ export function runRules(input: RulesInput): RuleFinding[] {
 
   const trims = input.trims ?? [];
   if (trims.length > 0) {
-    const rasters = new Map(input.rasters ?? []);
+    const rasters = new Map<string, TextureGrid>(input.rasters ?? []);
+    const zoneGrids = new Map<string, ZoneGrid>();
     for (const panel of input.panels) {
-      if (!rasters.has(panel.id) && trims.some((t) => t.panelId === panel.id)) rasters.set(panel.id, rasterizePanel(panel));
+      if (!trims.some((t) => t.panelId === panel.id)) continue;
+      const given = input.rasters?.get(panel.id);
+      if (given?.zoneCells) {
+        zoneGrids.set(panel.id, { width: given.width, height: given.height, zoneCells: given.zoneCells });
+        continue;
+      }
+      const drawn = rasterizePanel(panel, { zoneMap: true, counts: false });
+      if (!given) rasters.set(panel.id, drawn);
+      if (drawn.zoneCells) zoneGrids.set(panel.id, { width: drawn.width, height: drawn.height, zoneCells: drawn.zoneCells });
     }
-    findings.push(...checkTrimHeat(trims, rasters, textures, yarns), ...checkTrimReheat(trims));
+    findings.push(
+      ...checkTrimHeat(trims, rasters, textures, yarns),
+      ...checkTrimReheat(trims),
+      ...checkTrimVentilation(trims, input.panels, zoneGrids),
+      ...checkKnittedLogoDetail(trims, rasters, textures, input.machine.gauge),
+    );
   }
 
   const panelRank = new Map(input.panels.map((p, i) => [p.id, i]));

@@ -2,7 +2,7 @@ import { fibres, type Fibre, type FibreId } from '@/lib/knit/fibres';
 import type { PanelRaster } from '@/lib/knit/raster';
 import { textureYarnIds, type Texture } from '@/lib/knit/texture';
 import type { Yarn } from '@/lib/knit/yarn';
-import { boxesOverlap, isHeatApplied, type Trim } from './trim';
+import { boxesOverlap, isHeatApplied, trimLabel, type Trim } from './trim';
 import type { RuleFinding } from './types';
 
 /** What the heat rule reads of a panel's raster: the texture of every stitch. */
@@ -42,7 +42,7 @@ export function checkTrimHeat(
       out.push({
         rule: 'trim-heat',
         severity: 'warning',
-        message: `Trim ${trim.id} (${trim.kind}) is applied by ${trim.method} but has no temperature; it cannot be checked against the fabric.`,
+        message: `Trim ${trimLabel(trim)} is applied by ${trim.method} but has no temperature; it cannot be checked against the fabric.`,
         where: at,
       });
       continue;
@@ -71,7 +71,7 @@ export function checkTrimHeat(
       rule: 'trim-heat',
       severity: 'error',
       message:
-        `Trim ${trim.id} (${trim.kind}) is applied at ${trim.tempC} °C over ` +
+        `Trim ${trimLabel(trim)} is applied at ${trim.tempC} °C over ` +
         `${hurt.map((h) => `${h.fibre} (limit ${h.limit} °C)`).join(', ')}. ` +
         'Lower the temperature, move the trim to a zone without these fibres, or sew it on.',
       where: { ...at, textureId: firstHurt.textureId, yarnIds: [...new Set(hurt.flatMap((h) => [...h.yarnIds]))] },
@@ -92,7 +92,7 @@ export function checkTrimReheat(trims: readonly Trim[]): RuleFinding[] {
       out.push({
         rule: 'trim-reheat',
         severity: 'warning',
-        message: `Trims ${p.id} and ${q.id} overlap, so that area is heated twice; the first application and the fabric under it may not take a second press.`,
+        message: `Trims ${trimLabel(p)} and ${trimLabel(q)} overlap, so that area is heated twice; the first application and the fabric under it may not take a second press.`,
         where: {
           panelId: p.panelId,
           needle: Math.round(Math.max(p.box.x, q.box.x)),

@@ -29,6 +29,8 @@ export const ruleIds = [
   'dye-clash',
   'trim-heat',
   'trim-reheat',
+  'trim-ventilation',
+  'knitted-logo-detail',
 ] as const;
 export type RuleId = (typeof ruleIds)[number];
 

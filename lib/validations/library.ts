@@ -565,13 +565,25 @@ export const trimKindLabels: Record<(typeof trimKinds)[number], string> = {
   'woven-label': 'Woven label',
   'printed-tag': 'Printed tag',
   'care-label': 'Care label',
+  'knitted-logo': 'Knitted logo',
 };
 export const trimMethodLabels: Record<(typeof trimMethods)[number], string> = {
   'heat-press': 'Heat press',
   bonded: 'Bonded',
   sewn: 'Sewn',
   printed: 'Printed',
+  knitted: 'Knitted in',
 };
+
+/**
+ * Field errors when kind and method do not go together: a knitted logo is knitted in, and only a
+ * knitted logo is.
+ */
+export function trimPairingErrors(t: { kind: (typeof trimKinds)[number]; method: (typeof trimMethods)[number] }): Record<string, string[]> {
+  if (t.kind === 'knitted-logo' && t.method !== 'knitted') return { method: ['A knitted logo is knitted in'] };
+  if (t.kind !== 'knitted-logo' && t.method === 'knitted') return { method: ['Only a knitted logo is knitted in'] };
+  return {};
+}
 
 const boxSchema = z.object({
   x: num('Box x', 0, 10_000),
@@ -583,13 +595,22 @@ const boxSchema = z.object({
 const trimFields = {
   panelKind: z.enum(panelKinds, { error: 'Choose the panel' }),
   name: z.string().trim().max(80, 'At most 80 characters').default(''),
-  kind: z.enum(trimKinds, { error: 'Choose heat transfer, woven label, printed tag or care label' }),
-  method: z.enum(trimMethods, { error: 'Choose heat press, bonded, sewn or printed' }),
+  kind: z.enum(trimKinds, { error: 'Choose heat transfer, woven label, printed tag, care label or knitted logo' }),
+  method: z.enum(trimMethods, { error: 'Choose heat press, bonded, sewn, printed or knitted in' }),
   tempC: optionalNum('Temperature', 20, 400).default(null),
+  /** Knitted logo: the artwork's finest line or gap, mm. */
+  detailMm: optionalNum('Finest detail', 0.05, 100).default(null),
   box: boxSchema,
 };
 
-export const trimInputSchema = z.object(trimFields).strict();
+export const trimInputSchema = z
+  .object(trimFields)
+  .strict()
+  .superRefine((t, ctx) => {
+    for (const [path, messages] of Object.entries(trimPairingErrors(t))) {
+      for (const message of messages) ctx.addIssue({ code: 'custom', path: [path], message });
+    }
+  });
 export type TrimInput = z.infer<typeof trimInputSchema>;
 
 export const trimPatchSchema = z
@@ -600,6 +621,7 @@ export const trimPatchSchema = z
     kind: trimFields.kind.optional(),
     method: trimFields.method.optional(),
     tempC: optionalNum('Temperature', 20, 400).optional(),
+    detailMm: optionalNum('Finest detail', 0.05, 100).optional(),
     box: boxSchema.optional(),
   })
   .strict();
