@@ -42,6 +42,22 @@ function DeviationBar({ deviationCm, toleranceCm, status }: { deviationCm: numbe
 
 const roundTitle = (r: SampleRound) => `Round ${r.roundNo} · ${sampleRoundKindLabels[r.kind]} · ${r.size}`;
 
+/**
+ * After a 409 the page takes the newer version, so the next try carries it; what was typed stays
+ * in the form. Other errors just say what happened.
+ */
+async function failure(err: unknown, styleId: string, onDoc: (doc: FitDocument) => void): Promise<string> {
+  if (err instanceof ApiError && err.status === 409) {
+    try {
+      onDoc((await api<{ fit: FitDocument }>(`/api/styles/${styleId}/fit`)).fit);
+      return 'Someone saved this style after you opened it: the page now shows the latest version. What you entered is still here; check it and try again.';
+    } catch {
+      return err.message;
+    }
+  }
+  return errorText(err);
+}
+
 function errorText(err: unknown): string {
   if (err instanceof ApiError) {
     const detail = Object.entries(err.fieldErrors).map(([k, v]) => `${k}: ${v[0]}`).join('; ');
@@ -87,7 +103,7 @@ export function SampleRoundsCard({
     >
       {blocked && !readOnly ? <div className="mb-3"><Notice tone="warn">{blocked}</Notice></div> : null}
       {mode === 'record' && !readOnly ? (
-        <RecordRound doc={doc} points={points} unit={unit} disabled={!!blocked} onRecorded={(d, id) => { onDoc(d); setSelected(id); setMode('round'); }} />
+        <RecordRound doc={doc} points={points} unit={unit} disabled={!!blocked} onRecorded={(d, id) => { onDoc(d); setSelected(id); setMode('round'); }} onDoc={onDoc} />
       ) : mode === 'compare' ? (
         <CompareRounds doc={doc} spec={spec} unit={unit} />
       ) : round ? (
@@ -121,8 +137,9 @@ function roundFormSchema(unit: LengthUnit) {
 }
 type RoundForm = z.infer<ReturnType<typeof roundFormSchema>>;
 
-function RecordRound({ doc, points, unit, disabled, onRecorded }: {
+function RecordRound({ doc, points, unit, disabled, onRecorded, onDoc }: {
   doc: FitDocument; points: PointKey[]; unit: LengthUnit; disabled: boolean; onRecorded: (doc: FitDocument, roundId: string) => void;
+  onDoc: (doc: FitDocument) => void;
 }) {
   const [serverError, setServerError] = useState<string | null>(null);
   const schema = useMemo(() => roundFormSchema(unit), [unit]);
@@ -152,7 +169,7 @@ function RecordRound({ doc, points, unit, disabled, onRecorded }: {
       if (err instanceof ApiError) {
         for (const [path, msgs] of Object.entries(err.fieldErrors)) setError(path as keyof RoundForm, { message: msgs[0] });
       }
-      setServerError(errorText(err));
+      setServerError(await failure(err, doc.styleId, onDoc));
     }
   });
   return (
@@ -212,7 +229,7 @@ function RoundView({ doc, round, spec, unit, readOnly, disabled, onDoc }: {
       onDoc((await fn()).fit);
       return true;
     } catch (err) {
-      setError(errorText(err));
+      setError(await failure(err, doc.styleId, onDoc));
       return false;
     } finally {
       setBusy(false);
@@ -400,7 +417,7 @@ function Comments({ doc, round, readOnly, disabled, onDoc }: { doc: FitDocument;
               onDoc(res.fit);
               reset({ body: '' });
             } catch (err) {
-              setError(errorText(err));
+              setError(await failure(err, doc.styleId, onDoc));
             }
           })}
         >

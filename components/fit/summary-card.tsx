@@ -40,7 +40,7 @@ export function SummaryCard({ sizes, seamless, flat, pressure }: {
                 <td className="text-right">{needles !== undefined ? int.format(needles) : '—'}</td>
                 <td className={`text-right ${off ? 'font-semibold text-ochre-700' : ''}`}>
                   {values.length ? `${Math.min(...values).toFixed(1)}–${Math.max(...values).toFixed(1)}` : '—'}
-                  {off ? ` · ${off}!` : ''}
+                  {off ? <span className="ml-1 rounded bg-ochre-50 px-1 font-sans text-2xs" title={`${off} ${off === 1 ? 'girth' : 'girths'} outside the target band`}>{off} off</span> : null}
                 </td>
               </tr>
             );
