@@ -53,11 +53,16 @@ function safeCss(value: string): boolean {
 export function sanitiseSvg(text: string): SanitisedSvg {
   if (/<!DOCTYPE/i.test(text) || /<!ENTITY/i.test(text)) throw new SvgRejected('SVG files with a document type declaration are not accepted.');
   const errors: string[] = [];
-  const doc = new DOMParser({
-    onError: (level, msg) => {
-      if (level !== 'warning') errors.push(String(msg));
-    },
-  }).parseFromString(text, 'image/svg+xml');
+  let doc: ReturnType<DOMParser['parseFromString']>;
+  try {
+    doc = new DOMParser({
+      onError: (level, msg) => {
+        if (level !== 'warning') errors.push(String(msg));
+      },
+    }).parseFromString(text, 'image/svg+xml');
+  } catch {
+    throw new SvgRejected('The SVG is not well-formed XML.');
+  }
   const root = doc.documentElement;
   if (errors.length || !root) throw new SvgRejected('The SVG is not well-formed XML.');
   if (root.localName !== 'svg' || (root.namespaceURI && root.namespaceURI !== SVG_NS)) throw new SvgRejected('The file is not an SVG drawing.');

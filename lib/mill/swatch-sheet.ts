@@ -6,12 +6,12 @@
  * its legend, the feeders and their yarns, density and estimated g/m². Two textures a page, the
  * 5 cm and 2 in scale bars and the actual-size notice on every page.
  */
-import type { jsPDF } from 'jspdf';
+import { TilingPattern, type jsPDF } from 'jspdf';
 import { drawTileToPdf } from '@/lib/knit/render-pdf';
 import { renderTile, repeatsForMinSize } from '@/lib/knit/render';
 import type { StitchAction } from '@/lib/knit/texture';
 import { packYarnColours, paperSizes, textureFacts, type PackData, type PaperSize, type TextureFacts } from './pack-data';
-import { createPdf, font, fx, ink, pageChrome, pageNumbers, pdfBytes, pdfPathTarget, scaleBars, type PdfPage } from './pdf';
+import { createPdf, font, fx, ink, MM_PER_INCH, pageChrome, pageNumbers, pdfBytes, pdfPathTarget, scaleBars, type PdfPage } from './pdf';
 
 /** Tile px per cm used for the drawing list inside the PDF (1 px = 0.1 mm); the placement scales it. */
 const PDF_PX_PER_CM = 100;
@@ -125,34 +125,32 @@ function repeatTicks(doc: jsPDF, pl: SwatchPlacement, repW: number, repH: number
 }
 
 /**
- * Draws the tile at true size into the swatch rectangle: one form object of whole repeats, placed
- * as often as needed and clipped to the swatch.
+ * Draws the tile at true size into the swatch rectangle: the tile (whole repeats) becomes a PDF
+ * tiling pattern whose cell is exactly one tile, mapped from tile px to the page at 10 ÷ pxPerCm mm
+ * per px, and the swatch rectangle is filled with it — the repeat itself, repeated, as the mill
+ * will knit it. The pattern is anchored at the swatch's bottom-left corner (course 0 knits first).
  */
-function trueSizeTiles(doc: jsPDF, f: TextureFacts, colours: Record<string, string>, pl: SwatchPlacement, key: string): void {
+function trueSizeTiles(p: PdfPage, f: TextureFacts, colours: Record<string, string>, pl: SwatchPlacement, key: string): void {
+  const { doc } = p;
   const t = f.texture;
   const fit = repeatsForMinSize(t, PDF_PX_PER_CM, 60);
   const repeatsX = Math.min(fit.repeatsX, pl.repeatsX);
   const repeatsY = Math.min(fit.repeatsY, pl.repeatsY);
   const drawing = renderTile(t, colours, { repeatsX, repeatsY, pxPerCm: PDF_PX_PER_CM });
   const mmPerPx = 10 / PDF_PX_PER_CM;
-  const tileW = drawing.widthPx * mmPerPx;
   const tileH = drawing.heightPx * mmPerPx;
+  // Pattern space (tile px, y down) to the page's default space (pt, y up from the bottom).
+  const k = 72 / MM_PER_INCH;
+  const originX = pl.xMm;
+  const originTop = pl.yMm + pl.heightMm - tileH;
   doc.advancedAPI((d) => {
-    d.beginFormObject(0, 0, drawing.widthPx, drawing.heightPx, d.Matrix(1, 0, 0, 1, 0, 0));
+    const matrix = d.Matrix(mmPerPx * k, 0, 0, -mmPerPx * k, originX * k, (p.heightMm - originTop) * k);
+    const pattern = new TilingPattern([0, 0, drawing.widthPx, drawing.heightPx], drawing.widthPx, drawing.heightPx, undefined, matrix);
+    d.beginTilingPattern(pattern);
     drawTileToPdf(pdfPathTarget(d), drawing);
-    d.endFormObject(key);
-    d.saveGraphicsState();
+    d.endTilingPattern(key, pattern);
     d.rect(pl.xMm, pl.yMm, pl.widthMm, pl.heightMm, null);
-    d.clip();
-    d.discardPath();
-    // The tile's course 0 is its bottom row: place copies from the swatch's bottom edge upwards.
-    const bottom = pl.yMm + pl.heightMm;
-    for (let j = 0; j * tileH < pl.heightMm - 1e-6; j++) {
-      for (let i = 0; i * tileW < pl.widthMm - 1e-6; i++) {
-        d.doFormObject(key, d.Matrix(mmPerPx, 0, 0, mmPerPx, pl.xMm + i * tileW, bottom - (j + 1) * tileH));
-      }
-    }
-    d.restoreGraphicsState();
+    d.fill({ key } as unknown as Parameters<typeof d.fill>[0]);
   });
   doc.setDrawColor(ink.text);
   doc.setLineWidth(0.2);
@@ -191,7 +189,7 @@ function swatchBlock(
     courses: fit.repeatsY * t.repeat.courses,
     partial: widthMm < fit.widthMm - 1e-6 || heightMm < fit.heightMm - 1e-6,
   };
-  trueSizeTiles(doc, f, colours, pl, key);
+  trueSizeTiles(p, f, colours, pl, key);
   repeatTicks(doc, pl, rep.widthMm, rep.heightMm);
   font(doc, 'regular', 7, ink.soft);
   const caption = `${pl.repeatsX} × ${pl.repeatsY} repeats = ${pl.needles} needles × ${pl.courses} courses = ${fx(fit.widthMm)} × ${fx(fit.heightMm)} mm relaxed${pl.partial ? ' (part shown)' : ''}`;
