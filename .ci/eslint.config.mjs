@@ -1,7 +1,7 @@
 import next from 'eslint-config-next/core-web-vitals';
 import nextTs from 'eslint-config-next/typescript';
 
-const pure = ['lib/knit/**', 'lib/colour/**', 'lib/fit/**', 'lib/rules/**', 'lib/editor/**'];
+const pure = ['lib/knit/**', 'lib/colour/**', 'lib/fit/**', 'lib/rules/**', 'lib/editor/**', 'lib/cost/**'];
 
 export default [
   { ignores: ['.next/**', '.next-*/**', 'node_modules/**', '.pgdata/**', '.data/**', 'next-env.d.ts'] },

@@ -1,0 +1,4 @@
+export * from './production';
+export * from './rates';
+export * from './quote';
+export * from './csv';

@@ -1,0 +1,91 @@
+import { describe, expect, it } from 'vitest';
+import { computeQuote, defaultCostRates, machineCost, marginTo, quoteCsv, resolveRates, yarnCost, type QuoteInput } from '@/lib/cost';
+
+describe('yarnCost', () => {
+  it('adds the waste allowance to the knitted grams, then grams × price per kg ÷ 1000 (common practice; consumption per references.md §7(f))', () => {
+    const c = yarnCost(200, 0.05, 8);
+    expect(c.grossGrams).toBeCloseTo(210, 10);
+    expect(c.cost).toBeCloseTo(1.68, 10);
+  });
+  it('refuses negative grams or prices', () => {
+    expect(() => yarnCost(-1, 0, 1)).toThrow(RangeError);
+    expect(() => yarnCost(1, 0, -1)).toThrow(RangeError);
+  });
+});
+
+describe('machineCost and margin (common practice, no published source)', () => {
+  it('minutes × minute rate', () => expect(machineCost(6.25, 0.4)).toBeCloseTo(2.5, 10));
+  it('margin to the target price and its share', () => {
+    const m = marginTo(20, 15);
+    expect(m.margin).toBe(5);
+    expect(m.share).toBe(0.25);
+    expect(marginTo(0, 1).share).toBeNull();
+  });
+});
+
+const input = (over: Partial<QuoteInput> = {}): QuoteInput => ({
+  currency: 'EUR',
+  yarns: [
+    { id: 'pa', name: 'PA 78/68', pricePerKg: 8 },
+    { id: 'el', name: 'EL 44', pricePerKg: 20 },
+  ],
+  wasteAllowance: 0.05,
+  machine: { speedPerMinute: 60, feeders: 8, feedersPerCourse: 1, efficiency: 0.84, minuteRate: 0.4 },
+  makingUp: { cutting: 0.3, linking: 1.2, dyeing: 0.9, heatSetting: 0.25 },
+  trims: [{ name: 'Neck label', kind: 'heat-transfer', unitCost: 0.35 }],
+  targetPricePerGarment: 20,
+  sizes: [
+    { size: 'S', knittedGrams: { pa: 180, el: 20 }, courses: 2520, garments: 100 },
+    { size: 'M', knittedGrams: { pa: 200, el: 22 }, courses: 2640, garments: 150 },
+  ],
+  ...over,
+});
+
+describe('computeQuote', () => {
+  it('sums yarn, machine time, making-up and trims per garment and per order by size', () => {
+    const q = computeQuote(input());
+    const s = q.sizes[0]!;
+    // Yarn: 180 × 1.05 × 8 / 1000 = 1.512; 20 × 1.05 × 20 / 1000 = 0.42. Knitting: 6.25 min × 0.4 = 2.5.
+    // Making-up 2.65, trim 0.35 → 1.512 + 0.42 + 2.5 + 2.65 + 0.35 = 7.432.
+    expect(s.lines.find((l) => l.key === 'yarn:pa')!.amount).toBeCloseTo(1.512, 10);
+    expect(s.lines.find((l) => l.key === 'knitting')!.amount).toBeCloseTo(2.5, 10);
+    expect(s.knitting.minutes).toBeCloseTo(6.25, 10);
+    expect(s.perGarment).toBeCloseTo(7.432, 10);
+    expect(s.orderCost).toBeCloseTo(743.2, 8);
+    expect(s.marginPerGarment).toBeCloseTo(12.568, 10);
+    expect(s.marginShare).toBeCloseTo(0.6284, 10);
+    expect(q.order.garments).toBe(250);
+    expect(q.order.cost).toBeCloseTo(s.orderCost + q.sizes[1]!.orderCost, 8);
+    expect(q.order.revenue).toBe(5000);
+    expect(q.problems).toEqual([]);
+  });
+  it('says how each figure was computed', () => {
+    const s = computeQuote(input()).sizes[0]!;
+    expect(s.lines.find((l) => l.key === 'yarn:pa')!.how).toBe('180.0 g knitted + 5 % waste = 189.0 g × 8.00 EUR/kg ÷ 1000 = 1.51 EUR');
+    expect(s.lines.find((l) => l.key === 'knitting')!.how).toContain('2520 courses ÷ (60.0 rpm × 8 feeders ÷ 1 per course = 480.0 courses/min) ÷ 84 % efficiency = 6.25 min');
+  });
+  it('names yarns without a price, and a missing target price', () => {
+    const q = computeQuote(input({ yarns: [{ id: 'pa', name: 'PA 78/68', pricePerKg: null }], targetPricePerGarment: null }));
+    expect(q.problems.join(' ')).toMatch(/PA 78\/68/);
+    expect(q.problems.join(' ')).toMatch(/target price/);
+    expect(q.sizes[0]!.marginPerGarment).toBeNull();
+  });
+  it('writes a CSV with a row per line and the totals', () => {
+    const csv = quoteCsv(computeQuote(input()), { styleCode: 'HF27-101', styleName: 'Top' });
+    expect(csv.split('\r\n')[0]).toMatch(/^style,size,line/);
+    expect(csv).toContain('HF27-101,S,Total cost,total,7.432,100,743.2,');
+    expect(csv).toContain('Order margin');
+  });
+});
+
+describe('resolveRates', () => {
+  it('fills what the studio has not set with the example defaults and lists them', () => {
+    const { rates, defaults } = resolveRates({ machineMinuteRate: 0.5, makingUp: { cutting: 0.4 } });
+    expect(rates.machineMinuteRate).toBe(0.5);
+    expect(rates.makingUp.cutting).toBe(0.4);
+    expect(rates.makingUp.linking).toBe(defaultCostRates.makingUp.linking);
+    expect(defaults).toContain('efficiency');
+    expect(defaults).toContain('makingUp.linking');
+    expect(defaults).not.toContain('machineMinuteRate');
+  });
+});
