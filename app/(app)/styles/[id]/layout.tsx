@@ -1,17 +1,10 @@
-import { notFound, redirect } from 'next/navigation';
-import { currentUser } from '@/lib/auth/authorize';
-import { findStyle } from '@/lib/db/styles';
-import { idParamSchema, constructionLabels, garmentTypeLabels } from '@/lib/validations/style';
+import { constructionLabels, garmentTypeLabels } from '@/lib/validations/style';
 import { StatusBadge } from '@/components/styles/status-badge';
 import { SectionTabs } from '@/components/workspace/section-tabs';
+import { workspaceStyle } from '@/components/workspace/workspace-style';
 
 export default async function StyleWorkspaceLayout({ children, params }: { children: React.ReactNode; params: Promise<{ id: string }> }) {
-  const user = await currentUser();
-  if (!user) redirect('/sign-in');
-  const parsed = idParamSchema.safeParse(await params);
-  if (!parsed.success) notFound();
-  const style = await findStyle(user, parsed.data.id);
-  if (!style) notFound();
+  const { style } = await workspaceStyle((await params).id);
   return (
     <div>
       <div className="mb-4 border-b border-rule">

@@ -1,19 +1,11 @@
-import { notFound, redirect } from 'next/navigation';
-import { currentUser } from '@/lib/auth/authorize';
-import { findStyle } from '@/lib/db/styles';
 import { can } from '@/lib/auth/roles';
-import { idParamSchema } from '@/lib/validations/style';
 import { Card } from '@/components/ui/card';
 import { StyleForm } from '@/components/styles/style-form';
 import { SharesPanel } from '@/components/styles/shares-panel';
+import { workspaceStyle } from '@/components/workspace/workspace-style';
 
 export default async function StyleBriefPage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await currentUser();
-  if (!user) redirect('/sign-in');
-  const parsed = idParamSchema.safeParse(await params);
-  if (!parsed.success) notFound();
-  const style = await findStyle(user, parsed.data.id);
-  if (!style) notFound();
+  const { user, style } = await workspaceStyle((await params).id);
   const editable = can(user.role, 'style:edit');
   return (
     <div className="grid grid-cols-1 gap-5 xl:grid-cols-[1fr_340px]">

@@ -1,19 +1,11 @@
-import { notFound, redirect } from 'next/navigation';
-import { currentUser } from '@/lib/auth/authorize';
-import { findStyle } from '@/lib/db/styles';
 import { listStyleAudit } from '@/lib/db/audit';
 import { isOutsideRole } from '@/lib/auth/roles';
-import { idParamSchema } from '@/lib/validations/style';
 import { Card } from '@/components/ui/card';
 import { describeAudit } from '@/components/workspace/describe-audit';
+import { workspaceStyle } from '@/components/workspace/workspace-style';
 
 export default async function StyleHistoryPage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await currentUser();
-  if (!user) redirect('/sign-in');
-  const parsed = idParamSchema.safeParse(await params);
-  if (!parsed.success) notFound();
-  const style = await findStyle(user, parsed.data.id);
-  if (!style) notFound();
+  const { user, style } = await workspaceStyle((await params).id);
   if (isOutsideRole(user.role)) {
     return <Card title="History"><p className="text-sm text-ink-soft">The studio keeps the history of this style.</p></Card>;
   }
