@@ -29,6 +29,9 @@ export const permissions = [
   'proposal:decide',
   'mill:upload',
   'mill:download',
+  'brief:read',
+  'quote:read',
+  'quote:edit',
 ] as const;
 export type Permission = (typeof permissions)[number];
 
@@ -37,11 +40,17 @@ const grants: Record<Role, readonly Permission[]> = {
   designer: [
     'style:read', 'style:create', 'style:edit', 'style:archive', 'style:share', 'style:release',
     'library:read', 'library:edit', 'mill:download',
+    'brief:read', 'quote:read', 'quote:edit',
   ],
-  'colour-lead': ['style:read', 'library:read', 'colour:edit', 'labdip:decide', 'mill:download'],
-  client: ['style:read', 'proposal:comment', 'proposal:decide'],
+  'colour-lead': ['style:read', 'library:read', 'colour:edit', 'labdip:decide', 'mill:download', 'brief:read', 'quote:read'],
+  client: ['style:read', 'proposal:comment', 'proposal:decide', 'brief:read'],
   mill: ['style:read', 'mill:download', 'mill:upload'],
 };
+
+/** Costs, prices and margins: studio staff only, never the mill or the client. */
+export function canSeeCosts(role: Role): boolean {
+  return can(role, 'quote:read');
+}
 
 export function can(role: Role, permission: Permission): boolean {
   return grants[role].includes(permission);

@@ -8,7 +8,7 @@ import { can, isOutsideRole } from '@/lib/auth/roles';
 import type { InspectedUpload, UploadKind } from '@/lib/files/inspect';
 import type { ObjectStore } from '@/lib/storage/object-store';
 
-export type FilePurpose = 'attachment' | 'test-knit-photo' | 'mill-pack';
+export type FilePurpose = 'attachment' | 'test-knit-photo' | 'mill-pack' | 'brief-reference';
 
 export interface StoredFile {
   id: string;

@@ -1,0 +1,152 @@
+import type { Knex } from 'knex';
+import { db, type Db } from './knex';
+import type { SessionUser } from './users';
+import { conflict, forbidden, notFound } from '@/lib/api/errors';
+import { can, canSeeCosts } from '@/lib/auth/roles';
+import { findStyle, type Style } from './styles';
+import { listTrims } from './trims';
+import { briefAnswersForStudio } from './briefs';
+import { coursesPerGarment, loadStylePlan, sizeScales } from './plan-figures';
+import { computeQuote, exampleValueNote, resolveRates, trimCostKinds, type CostRates, type Quote, type QuoteMachine, type TrimCostKind } from '@/lib/cost';
+import { quoteInputsSchema, type CostRatesInput, type QuoteInputs } from '@/lib/validations/quote';
+
+export interface StudioCostRates {
+  rates: CostRates;
+  /** Keys still at their example value (dotted for making-up and trims). */
+  defaults: string[];
+  note: string;
+}
+
+export interface StyleQuote {
+  styleId: string;
+  styleCode: string;
+  styleName: string;
+  /** The quote entries' version: 0 while none are saved. */
+  version: number;
+  inputs: QuoteInputs;
+  studio: StudioCostRates;
+  /** The machine figures used, after the entries and the studio rates. */
+  machine: QuoteMachine & { kind: 'circular' | 'flat' };
+  quote: Quote;
+  /** How the sizes were scaled from the mapped base size, in words. */
+  basis: string[];
+  updatedAt: string | null;
+}
+
+/** Costs are studio staff's only: the mill and the client get 403 before anything is read. */
+function assertCosts(user: SessionUser) {
+  if (!canSeeCosts(user.role)) throw forbidden();
+}
+
+export async function studioCostRates(user: SessionUser, q: Db = db()): Promise<StudioCostRates> {
+  assertCosts(user);
+  const row = (await q('studios').where({ id: user.studioId }).first('settings')) as { settings: { costing?: Parameters<typeof resolveRates>[0] } } | undefined;
+  const { rates, defaults } = resolveRates(row?.settings?.costing ?? null);
+  return { rates, defaults, note: exampleValueNote };
+}
+
+/** Writes studios.settings.costing (null values fall back to the example defaults). */
+export async function setStudioCostRates(user: SessionUser, input: CostRatesInput, q: Knex = db()): Promise<StudioCostRates> {
+  if (!can(user.role, 'quote:edit')) throw forbidden();
+  const clean = (o: Record<string, unknown>): Record<string, unknown> =>
+    Object.fromEntries(Object.entries(o).filter(([, v]) => v !== null).map(([k, v]) => [k, v && typeof v === 'object' ? clean(v as Record<string, unknown>) : v]));
+  await q.transaction(async (trx) => {
+    await trx('studios').where({ id: user.studioId }).update({
+      settings: trx.raw("jsonb_set(coalesce(settings, '{}'::jsonb), '{costing}', ?::jsonb, true)", [JSON.stringify(clean(input))]),
+    });
+    await trx('audit_log').insert({ studio_id: user.studioId, user_id: user.id, action: 'studio.costing', details: JSON.stringify({ fields: Object.keys(clean(input)) }) });
+  });
+  return studioCostRates(user, q);
+}
+
+interface QuoteRow { inputs: unknown; version: number; updated_at: Date }
+
+async function quoteRow(styleId: string, q: Db): Promise<{ inputs: QuoteInputs; version: number; updatedAt: string | null }> {
+  const row = (await q('quotes').where({ style_id: styleId }).first('inputs', 'version', 'updated_at')) as QuoteRow | undefined;
+  if (!row) return { inputs: quoteInputsSchema.parse({}), version: 0, updatedAt: null };
+  const parsed = quoteInputsSchema.safeParse(row.inputs);
+  return { inputs: parsed.success ? parsed.data : quoteInputsSchema.parse({}), version: row.version, updatedAt: row.updated_at.toISOString() };
+}
+
+function machineFor(style: Style, inputs: QuoteInputs, rates: CostRates): QuoteMachine & { kind: 'circular' | 'flat' } {
+  const circular = style.machine.kind === 'circular';
+  const feeders = style.machine.kind === 'circular' ? style.machine.feeders : rates.flatSystems;
+  return {
+    kind: style.machine.kind,
+    speedPerMinute: inputs.speedPerMinute ?? (circular ? rates.circularRpm : rates.flatPassesPerMinute),
+    feeders,
+    feedersPerCourse: Math.min(inputs.feedersPerCourse, feeders),
+    efficiency: inputs.efficiency ?? rates.efficiency,
+    minuteRate: inputs.minuteRate ?? rates.machineMinuteRate,
+  };
+}
+
+/**
+ * The quote of a style: the body map's yarn grams (scaled per size by the size spec), its courses,
+ * the machine, making-up, trims, the brief's target price and order by size. Staff only.
+ */
+export async function loadQuote(user: SessionUser, styleId: string, q: Knex = db()): Promise<StyleQuote> {
+  assertCosts(user);
+  const style = await findStyle(user, styleId, q);
+  if (!style) throw notFound('Style not found.');
+  const [studio, stored, answers, trims] = await Promise.all([
+    studioCostRates(user, q), quoteRow(styleId, q), briefAnswersForStudio(user.studioId, styleId, q), listTrims(user, styleId, q),
+  ]);
+  const { rates } = studio;
+  const plan = await loadStylePlan(user, styleId, rates.wasteAllowance, q);
+  const { scales, fromSpec } = await sizeScales(user, style, q);
+  const machine = machineFor(style, stored.inputs, rates);
+  const baseCourses = coursesPerGarment(style, plan.panels);
+  const knitted = Object.fromEntries(Object.entries(plan.summary.consumption?.yarns ?? {}).map(([id, y]) => [id, y.knittedGrams]));
+  const basis = [
+    `Yarn grams and courses come from the body map of size ${style.sizes.base} (${Math.round(baseCourses)} courses${style.construction === 'seamless' ? ', front and back knitted as one tube' : ''}).`,
+    fromSpec
+      ? 'Other sizes scale by the size spec: grams by width × length, courses by length.'
+      : 'No size spec is saved: every size is costed as the base size.',
+    ...plan.summary.problems,
+  ];
+  const makingUp = { ...rates.makingUp };
+  for (const [k, v] of Object.entries(stored.inputs.makingUp)) if (typeof v === 'number') makingUp[k as keyof typeof makingUp] = v;
+  const quote = computeQuote({
+    currency: rates.currency,
+    yarns: plan.yarns.map((y) => ({ id: y.id, name: y.name, pricePerKg: y.pricePerKg })),
+    wasteAllowance: rates.wasteAllowance,
+    machine,
+    makingUp,
+    trims: stored.inputs.includeTrims
+      ? trims.map((t) => ({ name: t.name, kind: t.kind, unitCost: (trimCostKinds as readonly string[]).includes(t.kind) ? rates.trimUnitCost[t.kind as TrimCostKind] : 0 }))
+      : [],
+    targetPricePerGarment: answers?.targetPrice ?? null,
+    sizes: scales.map((s) => ({
+      size: s.size,
+      knittedGrams: Object.fromEntries(Object.entries(knitted).map(([id, g]) => [id, g * s.width * s.length])),
+      courses: baseCourses * s.length,
+      garments: answers?.orderBySize[s.size] ?? 0,
+    })),
+  });
+  return {
+    styleId, styleCode: style.code, styleName: style.name, version: stored.version, inputs: stored.inputs, studio, machine, quote, basis, updatedAt: stored.updatedAt,
+  };
+}
+
+/** Saves the quote entries when `version` is the stored one (0 for the first save); otherwise 409. */
+export async function saveQuoteInputs(user: SessionUser, styleId: string, input: { version: number; inputs: QuoteInputs }, q: Knex = db()): Promise<StyleQuote> {
+  if (!can(user.role, 'quote:edit')) throw forbidden();
+  if (!(await findStyle(user, styleId, q))) throw notFound('Style not found.');
+  await q.transaction(async (trx) => {
+    const current = (await trx('quotes').where({ style_id: styleId }).forUpdate().first('version')) as { version: number } | undefined;
+    const stale = () => conflict('Someone saved this quote after you opened it. Reload to see their entries.', { currentVersion: current?.version ?? 0 });
+    if (!current) {
+      if (input.version !== 0) throw stale();
+      const ins = await trx('quotes').insert({ style_id: styleId, studio_id: user.studioId, inputs: JSON.stringify(input.inputs), updated_by: user.id }).onConflict('style_id').ignore().returning('style_id');
+      if (ins.length === 0) throw stale();
+    } else {
+      const n = await trx('quotes').where({ style_id: styleId, version: input.version })
+        .update({ inputs: JSON.stringify(input.inputs), version: trx.raw('version + 1'), updated_by: user.id, updated_at: trx.fn.now() });
+      if (n === 0) throw stale();
+    }
+    // Field names only: the history is read by client reviewers too.
+    await trx('audit_log').insert({ studio_id: user.studioId, style_id: styleId, user_id: user.id, action: 'quote.save', details: '{}' });
+  });
+  return loadQuote(user, styleId, q);
+}

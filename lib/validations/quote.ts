@@ -1,0 +1,45 @@
+import { z } from 'zod';
+import { makingUpKeys, trimCostKinds } from '@/lib/cost/rates';
+
+const money = (what: string) => z.number({ error: `${what} must be a number` }).min(0, `${what} must be at least 0`).max(100_000, `${what} is too large`);
+const maybe = <T extends z.ZodType>(s: T) => s.nullable().default(null);
+
+/** The studio costing rates (studios.settings.costing); absent or null values take the example defaults. */
+export const costRatesSchema = z
+  .object({
+    currency: maybe(z.string().trim().regex(/^[A-Z]{3}$/, 'A three-letter currency code, such as EUR')),
+    machineMinuteRate: maybe(money('Machine-minute rate')),
+    efficiency: maybe(z.number({ error: 'Efficiency must be a number' }).gt(0, 'Efficiency must be above 0').max(1, 'Efficiency is at most 1 (100 %)')),
+    circularRpm: maybe(z.number({ error: 'Speed must be a number' }).positive('Speed must be above zero').max(200, 'Speed above 200 rpm is not realistic')),
+    flatPassesPerMinute: maybe(z.number({ error: 'Speed must be a number' }).positive('Speed must be above zero').max(200)),
+    flatSystems: maybe(z.number().int('Whole systems only').min(1, 'At least one system').max(8)),
+    wasteAllowance: maybe(z.number({ error: 'Waste must be a number' }).min(0, 'Waste is at least 0').max(1, 'Waste is at most 1 (100 %)')),
+    makingUp: z.object(Object.fromEntries(makingUpKeys.map((k) => [k, maybe(money('Cost'))])) as Record<(typeof makingUpKeys)[number], z.ZodDefault<z.ZodNullable<z.ZodNumber>>>).strict().default({ cutting: null, linking: null, dyeing: null, heatSetting: null }),
+    trimUnitCost: z.object(Object.fromEntries(trimCostKinds.map((k) => [k, maybe(money('Cost'))])) as Record<(typeof trimCostKinds)[number], z.ZodDefault<z.ZodNullable<z.ZodNumber>>>).strict().default({ 'heat-transfer': null, 'woven-label': null, 'printed-tag': null, 'care-label': null, 'knitted-logo': null }),
+  })
+  .strict();
+export type CostRatesInput = z.infer<typeof costRatesSchema>;
+
+export const costRatesPutSchema = z.object({ rates: costRatesSchema }).strict();
+
+/** What the designer enters for one style's quote; null takes the studio rate. */
+export const quoteInputsSchema = z
+  .object({
+    speedPerMinute: maybe(z.number({ error: 'Speed must be a number' }).positive('Speed must be above zero').max(200, 'Speed above 200 per minute is not realistic')),
+    feedersPerCourse: z.number({ error: 'Feeders per course must be a number' }).int('Whole feeders only').min(1, 'At least one feeder per course').max(16).default(1),
+    efficiency: maybe(z.number({ error: 'Efficiency must be a number' }).gt(0, 'Efficiency must be above 0').max(1, 'Efficiency is at most 1 (100 %)')),
+    minuteRate: maybe(money('Machine-minute rate')),
+    makingUp: z.object(Object.fromEntries(makingUpKeys.map((k) => [k, maybe(money('Cost'))])) as Record<(typeof makingUpKeys)[number], z.ZodDefault<z.ZodNullable<z.ZodNumber>>>).strict().default({ cutting: null, linking: null, dyeing: null, heatSetting: null }),
+    includeTrims: z.boolean().default(true),
+  })
+  .strict();
+export type QuoteInputs = z.infer<typeof quoteInputsSchema>;
+
+export const quoteSaveSchema = z
+  .object({
+    version: z.number({ error: 'The version you edited is required' }).int().min(0),
+    inputs: quoteInputsSchema,
+  })
+  .strict();
+
+export const quoteExportQuerySchema = z.object({ format: z.enum(['pdf', 'csv'], { error: 'format: pdf or csv' }) });
