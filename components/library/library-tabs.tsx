@@ -23,6 +23,12 @@ export function LibraryTabs({ active, counts }: { active: LibraryTab; counts: Re
           <span className="figures rounded-full bg-rule/70 px-1.5 text-2xs leading-4 text-ink-soft">{counts[t.id]}</span>
         </Link>
       ))}
+      <Link
+        href="/library/colour-standards"
+        className="inline-flex items-center gap-2 whitespace-nowrap border-b-2 border-transparent px-3 py-2 text-sm font-medium text-ink-soft hover:text-ink"
+      >
+        Colour standards
+      </Link>
     </nav>
   );
 }
