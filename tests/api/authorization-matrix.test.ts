@@ -530,7 +530,77 @@ export const matrix: Record<string, Entry> = {
       return c.patch(`/api/styles/${k.styleId}/fit/rounds/${k.roundId}/corrections/${k.correctionId}`, { version: k.version, decision: 'accept' });
     },
   },
+  // The brief and the quote: the brief for staff and the client reviewer (not the mill); costs for staff only.
+  'GET /api/styles/[id]/brief': { expect: briefReaders(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/brief`) },
+  'PUT /api/styles/[id]/brief': {
+    expect: editors(200),
+    run: async (c) => c.put(`/api/styles/${(await freshStyle()).id}/brief`, { version: 0, answers: { sport: 'Trail running' } }),
+  },
+  'GET /api/styles/[id]/brief/checks': { expect: briefReaders(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/brief/checks`) },
+  'GET /api/styles/[id]/brief/references': { expect: briefReaders(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/brief/references`) },
+  'POST /api/styles/[id]/brief/references': {
+    expect: editors(201),
+    run: async (c) => postForm(c, `/api/styles/${(await freshStyle()).id}/brief/references`, referenceForm()),
+  },
+  'PUT /api/styles/[id]/brief/references/order': {
+    expect: editors(200),
+    run: async (c) => {
+      const r = await freshReference();
+      return c.put(`/api/styles/${r.styleId}/brief/references/order`, { ids: [r.refId] });
+    },
+  },
+  'PATCH /api/styles/[id]/brief/references/[refId]': {
+    expect: editors(200),
+    run: async (c) => {
+      const r = await freshReference();
+      return c.patch(`/api/styles/${r.styleId}/brief/references/${r.refId}`, { caption: 'Matrix caption', tag: 'detail' });
+    },
+  },
+  'DELETE /api/styles/[id]/brief/references/[refId]': {
+    expect: editors(200),
+    run: async (c) => {
+      const r = await freshReference();
+      return c.delete(`/api/styles/${r.styleId}/brief/references/${r.refId}`);
+    },
+  },
+  'GET /api/styles/[id]/brief/references/[refId]/image': {
+    expect: briefReaders(200),
+    run: async (c, ctx) => {
+      const r = await (sharedReference ??= freshReference(ctx.sharedStyleId));
+      return c.get(`/api/styles/${r.styleId}/brief/references/${r.refId}/image`);
+    },
+  },
+  'GET /api/styles/[id]/quote': { expect: staffOnly(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/quote`) },
+  'PUT /api/styles/[id]/quote': {
+    expect: editors(200),
+    run: async (c) => c.put(`/api/styles/${(await freshStyle()).id}/quote`, { version: 0, inputs: { feedersPerCourse: 1 } }),
+  },
+  'GET /api/styles/[id]/quote/export': { expect: staffOnly(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/quote/export?format=csv`) },
+  'GET /api/settings/costing': { expect: staffOnly(200), run: (c) => c.get('/api/settings/costing') },
+  'PUT /api/settings/costing': { expect: editors(200), run: (c) => c.put('/api/settings/costing', { rates: { machineMinuteRate: 0.35 } }) },
 };
+
+function briefReaders(ok: number) {
+  return { anon: 401, admin: ok, designer: ok, 'colour-lead': ok, client: ok, mill: 403 };
+}
+
+function referenceForm() {
+  const form = new FormData();
+  form.set('file', new Blob([tinyPng], { type: 'image/png' }), 'reference.png');
+  form.set('caption', 'Matrix reference');
+  form.set('tag', 'colour');
+  return form;
+}
+
+/** A reference on a fresh style (or the given one), uploaded by the designer. */
+async function freshReference(styleId?: string) {
+  const designer = await as('designer');
+  const id = styleId ?? (await freshStyle()).id;
+  const res = await fetch(baseUrl() + `/api/styles/${id}/brief/references`, { method: 'POST', body: referenceForm(), headers: { cookie: designer.cookie } });
+  const json = (await res.json()) as { reference: { id: string } };
+  return { styleId: id, refId: json.reference.id };
+}
+let sharedReference: ReturnType<typeof freshReference> | null = null;
 
 /** Every METHOD + path exported by a route.ts under app/api. */
 function discoverRoutes(): string[] {

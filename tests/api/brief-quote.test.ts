@@ -1,0 +1,179 @@
+/**
+ * The brief (questionnaire, reference board, Brief vs plan) and the quote: saving with versions,
+ * clear 400s, 409 on stale, history entries, uploads checked by content, and roles — the mill and
+ * the client never see a cost, a price or a margin anywhere they can reach.
+ */
+import { beforeAll, describe, expect, it } from 'vitest';
+import { as, baseUrl, styleByCode, type Client } from './helpers';
+
+const tinyPng = Buffer.from(
+  'iVBORw0KGgoAAAANSUhEUgAAAAIAAAACCAIAAAD91JpzAAAAFklEQVR4nGP8z8DAwMDAxMDAwMDAAAANHQEDasKb6QAAAABJRU5ErkJggg==',
+  'base64',
+);
+
+async function upload(c: Client, styleId: string, bytes: Uint8Array, fields: Record<string, string>, name = 'ref.png') {
+  const form = new FormData();
+  form.set('file', new Blob([new Uint8Array(bytes)], { type: 'image/png' }), name);
+  for (const [k, v] of Object.entries(fields)) form.set(k, v);
+  const res = await fetch(baseUrl() + `/api/styles/${styleId}/brief/references`, { method: 'POST', body: form, headers: { cookie: c.cookie } });
+  const text = await res.text();
+  return { status: res.status, json: text ? JSON.parse(text) : null };
+}
+
+describe('brief and quote routes', () => {
+  let designer: Client;
+  let client: Client;
+  let mill: Client;
+  let styleId: string;
+
+  beforeAll(async () => {
+    designer = await as('designer');
+    client = await as('client');
+    mill = await as('mill');
+    styleId = (await styleByCode('HF27-101')).id;
+  });
+
+  it('saves the brief with versions: 409 on a stale version, a history entry naming fields only', async () => {
+    const before = (await designer.get(`/api/styles/${styleId}/brief`)).json.brief;
+    const answers = {
+      ...before.answers, sport: 'Trail running', compression: 'moderate', tones: 2, targetPrice: 47.35,
+      orderBySize: { S: 120, M: 240, L: 180 }, markets: ['eu', 'us'], fibresToAvoid: ['wool'], recycledPct: 30,
+    };
+    const saved = await designer.put(`/api/styles/${styleId}/brief`, { version: before.version, answers });
+    expect(saved.status).toBe(200);
+    expect(saved.json.brief.version).toBe(before.version + 1);
+    expect(saved.json.brief.answers.targetPrice).toBe(47.35);
+    const stale = await designer.put(`/api/styles/${styleId}/brief`, { version: before.version, answers: { ...answers, sport: 'Cycling' } });
+    expect(stale.status).toBe(409);
+    expect((await designer.get(`/api/styles/${styleId}/brief`)).json.brief.answers.sport).toBe('Trail running');
+    const history = await designer.get(`/api/styles/${styleId}/history`);
+    const entry = JSON.stringify(history.json).match(/brief\.save[^}]*}/)?.[0] ?? '';
+    expect(entry).toContain('targetPrice');
+    expect(JSON.stringify(history.json)).not.toContain('47.35');
+  });
+
+  it('answers bad input with 400 and field errors, never 500', async () => {
+    const v = (await designer.get(`/api/styles/${styleId}/brief`)).json.brief.version;
+    const bad = await designer.put(`/api/styles/${styleId}/brief`, { version: v, answers: { tones: 'many', markets: ['mars'], recycledPct: 140 } });
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.json.fieldErrors)).toEqual(expect.arrayContaining(['answers.tones', 'answers.markets.0', 'answers.recycledPct']));
+    const size = await designer.put(`/api/styles/${styleId}/brief`, { version: v, answers: { orderBySize: { XXXL: 5 } } });
+    expect(size.status).toBe(400);
+    expect(size.json.fieldErrors['answers.orderBySize.XXXL']).toBeDefined();
+    expect((await designer.put(`/api/styles/${styleId}/brief`, 'not json')).status).toBe(400);
+    expect((await designer.get('/api/styles/not-a-uuid/brief')).status).toBe(400);
+    expect((await designer.put(`/api/styles/${styleId}/quote`, { version: 0, inputs: { efficiency: 3 } })).status).toBe(400);
+    expect((await designer.get(`/api/styles/${styleId}/quote/export?format=docx`)).status).toBe(400);
+    expect((await designer.put('/api/settings/costing', { rates: { currency: 'euro' } })).status).toBe(400);
+  });
+
+  it('the client reads the brief without its price; the mill may not read it', async () => {
+    const res = await client.get(`/api/styles/${styleId}/brief`);
+    expect(res.status).toBe(200);
+    expect(res.json.brief.answers.targetPrice).toBeNull();
+    expect(res.json.brief.pricesHidden).toBe(true);
+    expect(res.json.brief.answers.sport).toBe('Trail running');
+    expect((await mill.get(`/api/styles/${styleId}/brief`)).status).toBe(403);
+    expect((await client.put(`/api/styles/${styleId}/brief`, { version: 1, answers: {} })).status).toBe(403);
+  });
+
+  it('keeps a reference board: uploads checked by content, caption and tag, reorder, read-only for the client', async () => {
+    const a = await upload(designer, styleId, tinyPng, { caption: 'Slate and ember', tag: 'colour' });
+    expect(a.status).toBe(201);
+    const b = await upload(designer, styleId, tinyPng, { caption: 'Rib detail', tag: 'detail' });
+    expect(b.status).toBe(201);
+    const notImage = await upload(designer, styleId, new TextEncoder().encode('just text, not a picture'), { tag: 'colour' }, 'fake.png');
+    expect(notImage.status).toBeGreaterThanOrEqual(400);
+    expect(notImage.status).toBeLessThan(500);
+    expect(notImage.json.fieldErrors.file).toBeDefined();
+    const badTag = await upload(designer, styleId, tinyPng, { tag: 'mood' });
+    expect(badTag.status).toBe(400);
+    const list = (await designer.get(`/api/styles/${styleId}/brief/references`)).json.references as { id: string }[];
+    const ids = list.map((r) => r.id);
+    const reversed = await designer.put(`/api/styles/${styleId}/brief/references/order`, { ids: [...ids].reverse() });
+    expect(reversed.status).toBe(200);
+    expect(reversed.json.references.map((r: { id: string }) => r.id)).toEqual([...ids].reverse());
+    expect((await designer.put(`/api/styles/${styleId}/brief/references/order`, { ids: ids.slice(1) })).status).toBe(409);
+    const patched = await designer.patch(`/api/styles/${styleId}/brief/references/${a.json.reference.id}`, { tag: 'texture', caption: 'Texture' });
+    expect(patched.json.reference.tag).toBe('texture');
+    expect((await designer.patch(`/api/styles/${styleId}/brief/references/${a.json.reference.id}`, { tag: 'mood' })).status).toBe(400);
+    // The client sees the board and its images, and may not change it.
+    const seen = await client.get(`/api/styles/${styleId}/brief/references`);
+    expect(seen.json.references.length).toBe(list.length);
+    const img = await fetch(baseUrl() + seen.json.references[0].url, { headers: { cookie: client.cookie } });
+    expect(img.status).toBe(200);
+    expect(img.headers.get('content-type')).toBe('image/png');
+    expect((await upload(client, styleId, tinyPng, { tag: 'colour' })).status).toBe(403);
+    expect((await client.delete(`/api/styles/${styleId}/brief/references/${a.json.reference.id}`)).status).toBe(403);
+    expect((await mill.get(`/api/styles/${styleId}/brief/references`)).status).toBe(403);
+    expect((await designer.delete(`/api/styles/${styleId}/brief/references/${b.json.reference.id}`)).status).toBe(200);
+  });
+
+  it('lists Brief vs plan findings: fibres to avoid, tones, label regions', async () => {
+    const v = (await designer.get(`/api/styles/${styleId}/brief`)).json.brief;
+    await designer.put(`/api/styles/${styleId}/brief`, { version: v.version, answers: { ...v.answers, fibresToAvoid: ['elastane'] } });
+    const res = await designer.get(`/api/styles/${styleId}/brief/checks`);
+    expect(res.status).toBe(200);
+    const checks = res.json.checks as { id: string; status: string; message: string }[];
+    expect(checks.find((c) => c.id === 'fibres-to-avoid')?.status).toBe('error');
+    expect(checks.find((c) => c.id === 'label-regions')?.message).toMatch(/EU fibre names/);
+    expect(checks.map((c) => c.id)).toEqual(expect.arrayContaining(['recycled', 'compression', 'tones']));
+    expect((await client.get(`/api/styles/${styleId}/brief/checks`)).status).toBe(200);
+    expect((await mill.get(`/api/styles/${styleId}/brief/checks`)).status).toBe(403);
+  });
+
+  it('quotes per size with how each figure was computed, saves entries with versions, downloads PDF and CSV', async () => {
+    const res = await designer.get(`/api/styles/${styleId}/quote`);
+    expect(res.status).toBe(200);
+    const q = res.json.quote;
+    expect(q.quote.sizes.map((s: { size: string }) => s.size)).toEqual((await styleByCode('HF27-101')).sizes.labels);
+    const m = q.quote.sizes.find((s: { size: string }) => s.size === 'M');
+    expect(m.garments).toBe(240);
+    expect(m.perGarment).toBeGreaterThan(0);
+    expect(m.lines.find((l: { key: string }) => l.key === 'knitting').how).toMatch(/courses ÷ \(/);
+    expect(m.lines.some((l: { group: string; how: string }) => l.group === 'yarn' && /waste/.test(l.how))).toBe(true);
+    expect(q.quote.targetPricePerGarment).toBe(47.35);
+    expect(q.studio.note).toBe('example value, set your own');
+    const saved = await designer.put(`/api/styles/${styleId}/quote`, { version: q.version, inputs: { ...q.inputs, feedersPerCourse: 2, makingUp: { ...q.inputs.makingUp, cutting: 0.5 } } });
+    expect(saved.status).toBe(200);
+    expect(saved.json.quote.machine.feedersPerCourse).toBe(2);
+    expect((await designer.put(`/api/styles/${styleId}/quote`, { version: q.version, inputs: q.inputs })).status).toBe(409);
+    const pdf = await fetch(baseUrl() + `/api/styles/${styleId}/quote/export?format=pdf`, { headers: { cookie: designer.cookie } });
+    expect(pdf.status).toBe(200);
+    expect(Buffer.from(await pdf.arrayBuffer()).subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    const csv = await designer.get(`/api/styles/${styleId}/quote/export?format=csv`);
+    expect(csv.text.split('\r\n')[0]).toMatch(/^style,size,line/);
+    expect(csv.text).toContain('HF27-101,M,Total cost');
+  });
+
+  it('the mill and the client get 403 on every cost route', async () => {
+    for (const c of [client, mill]) {
+      expect((await c.get(`/api/styles/${styleId}/quote`)).status).toBe(403);
+      expect((await c.get(`/api/styles/${styleId}/quote/export?format=pdf`)).status).toBe(403);
+      expect((await c.get(`/api/styles/${styleId}/quote/export?format=csv`)).status).toBe(403);
+      expect((await c.put(`/api/styles/${styleId}/quote`, { version: 0, inputs: {} })).status).toBe(403);
+      expect((await c.get('/api/settings/costing')).status).toBe(403);
+      expect((await c.get('/api/library/yarns')).status).toBe(403);
+    }
+  });
+
+  it('the mill and the client never see a price in any style JSON they can reach', async () => {
+    const paths = [
+      `/api/styles/${styleId}`, `/api/styles/${styleId}/textures`, `/api/styles/${styleId}/body-map`, `/api/styles/${styleId}/fit`,
+      `/api/styles/${styleId}/fit/sheet`, `/api/styles/${styleId}/colourways`, `/api/styles/${styleId}/trims`, `/api/styles/${styleId}/history`,
+      `/api/styles/${styleId}/brief`, `/api/styles/${styleId}/brief/checks`, `/api/styles/${styleId}/brief/references`, '/api/styles',
+    ];
+    // The staff view has prices, so the check below is not vacuous.
+    expect((await designer.get(`/api/styles/${styleId}/textures`)).text).toMatch(/"pricePerKg":\d/);
+    for (const c of [client, mill]) {
+      for (const p of paths) {
+        const res = await c.get(p);
+        if (res.status !== 200) continue;
+        expect(res.text, `${c.label} ${p}`).not.toMatch(/"pricePerKg":\d/);
+        expect(res.text, `${c.label} ${p}`).not.toMatch(/"targetPrice":\d/);
+        expect(res.text, `${c.label} ${p}`).not.toMatch(/"(margin|marginPerGarment|perGarment|orderCost|machineMinuteRate)"/);
+        expect(res.text, `${c.label} ${p}`).not.toContain('47.35');
+      }
+    }
+  });
+});
