@@ -287,6 +287,8 @@ export async function addProposalComment(user: SessionUser, releaseId: string, b
 
 /** The client's decision on a revision it was asked to review; e-mails the designer who asked. */
 export async function decideProposal(user: SessionUser, releaseId: string, input: ProposalDecision, opts: { appUrl: string }, q: Knex = db()): Promise<{ release: Release; mail: MailResult }> {
+  // The decision is the client's own: studio accounts comment but do not approve for the client.
+  if (user.role !== 'client' || !user.organisationId) throw forbidden();
   const release = await requireRelease(user, releaseId, q);
   const requester = await q.transaction(async (trx) => {
     const review = (await trx('proposal_reviews').where({ release_id: releaseId, organisation_id: user.organisationId ?? '' }).forUpdate().first()) as
