@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import { db, type Db } from './knex';
 import type { SessionUser } from './users';
 import { findStyle } from './styles';
-import { yarnsByIds, type LibraryYarn } from './yarns';
+import { yarnForViewer, yarnsByIds, type LibraryYarn } from './yarns';
 import { conflict, HttpError, notFound } from '@/lib/api/errors';
 import { textureYarnIds, type Feeder, type ForceExtensionPoint, type Texture } from '@/lib/knit/texture';
 import { decodeCells, encodeCells } from '@/lib/library/chart';
@@ -218,7 +218,7 @@ export interface StyleTextures {
   /** The style's version: a change to the list must carry it. */
   version: number;
   textures: LibraryTexture[];
-  /** The yarns those textures feed. */
+  /** The yarns those textures feed (without prices for mill and client accounts). */
   yarns: LibraryYarn[];
 }
 
@@ -235,7 +235,8 @@ export async function listStyleTextures(user: SessionUser, styleId: string, q: D
     .orderBy([{ column: 'stx.position' }, { column: 't.name' }])
     .select('t.*')) as TextureRow[];
   const textures = rows.map(toTexture);
-  return { version: style.version, textures, yarns: await yarnsOfTextures(user.studioId, textures, q) };
+  const yarns = (await yarnsOfTextures(user.studioId, textures, q)).map((y) => yarnForViewer(user, y));
+  return { version: style.version, textures, yarns };
 }
 
 /**
@@ -259,6 +260,17 @@ export async function setStyleTextures(user: SessionUser, styleId: string, input
       if (!known.has(id)) errors[`textureIds.${i}`] = ['Not a texture of the studio library'];
     });
     if (Object.keys(errors).length > 0) throw new HttpError(400, 'Some fields need attention.', { fieldErrors: errors });
+    // A texture the saved body map uses stays: the mill and the client read the style's textures.
+    const inMap = (await trx('panels as p')
+      .leftJoin('zones as z', 'z.panel_id', 'p.id')
+      .where('p.style_id', styleId)
+      .select('p.base_texture_id', 'z.texture_id')) as { base_texture_id: string | null; texture_id: string | null }[];
+    const usedByMap = new Set(inMap.flatMap((r) => [r.base_texture_id, r.texture_id]).filter((id): id is string => !!id));
+    const dropped = [...usedByMap].filter((id) => !input.textureIds.includes(id));
+    if (dropped.length > 0) {
+      const names = (await trx('textures').whereIn('id', dropped).orderBy('name').pluck('name')) as string[];
+      throw conflict(`The body map uses ${names.join(', ')}: change the zones and panel bases that use ${names.length === 1 ? 'it' : 'them'} first.`, { textures: dropped });
+    }
     const bumped = await trx('styles')
       .where({ id: styleId, studio_id: user.studioId, version: input.version })
       .whereNull('archived_at')

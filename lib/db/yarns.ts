@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import { db, type Db } from './knex';
 import type { SessionUser } from './users';
 import { conflict, HttpError, notFound } from '@/lib/api/errors';
+import { isOutsideRole } from '@/lib/auth/roles';
 import type { CountUnit } from '@/lib/knit/count';
 import type { LabColour, Yarn, YarnColour, YarnFibre } from '@/lib/knit/yarn';
 import {
@@ -80,6 +81,11 @@ const nameTaken = () =>
 
 function uniqueViolation(err: unknown): boolean {
   return !!err && typeof err === 'object' && (err as { code?: string }).code === '23505';
+}
+
+/** A yarn as an account may see it: prices are the studio's own and never reach mill or client accounts. */
+export function yarnForViewer<T extends LibraryYarn>(user: SessionUser, yarn: T): T {
+  return isOutsideRole(user.role) ? { ...yarn, pricePerKg: null } : yarn;
 }
 
 /** The studio's yarns that are not archived, by name. */

@@ -261,8 +261,10 @@ export interface CategoryAdvice {
   limit: CareOption;
   /** The fibres whose own limit is that option (the strictest fibres). */
   decidedBy: FibreId[];
-  /** Why, in words, with the status of the value. */
+  /** Why, in words: the fibres, then `why`. */
   reason: string;
+  /** Why the deciding fibre takes no more. */
+  why: string;
   status: CareSourceStatus;
 }
 
@@ -325,6 +327,7 @@ export function careAdvice(shares: FibreShares, opts: { heatTransfer?: boolean }
       limit,
       decidedBy,
       reason: `${names.join(', ')}: ${src.why}`,
+      why: src.why,
       status: src.status,
     };
   }

@@ -1,29 +1,23 @@
 import type { Metadata } from 'next';
-import { notFound, redirect } from 'next/navigation';
-import { currentUser } from '@/lib/auth/authorize';
 import { can } from '@/lib/auth/roles';
-import { findStyle } from '@/lib/db/styles';
 import { loadBodyMap } from '@/lib/db/body-map';
 import { listStyleTextures, listTextures, yarnsOfTextures } from '@/lib/db/textures';
-import { idParamSchema } from '@/lib/validations/style';
+import { yarnForViewer } from '@/lib/db/yarns';
 import { BodyMapEditor } from '@/components/body-map/body-map-editor';
+import { notFound } from 'next/navigation';
+import { workspaceStyle } from '@/components/workspace/workspace-style';
 
 export const metadata: Metadata = { title: 'Body map' };
 
 export default async function BodyMapPage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await currentUser();
-  if (!user) redirect('/sign-in');
-  const parsed = idParamSchema.safeParse(await params);
-  if (!parsed.success) notFound();
-  const style = await findStyle(user, parsed.data.id);
-  if (!style) notFound();
+  const { user, style } = await workspaceStyle((await params).id);
   const [map, styleTextures] = await Promise.all([loadBodyMap(user, style.id), listStyleTextures(user, style.id)]);
   if (!map) notFound();
   // Editors choose from the whole library; everyone else sees the style's own textures.
   const library = can(user.role, 'library:read') ? await listTextures(user) : [];
   const byId = new Map([...styleTextures.textures, ...library].map((t) => [t.id, t]));
   const textures = [...byId.values()].filter((t) => !t.archivedAt || styleTextures.textures.some((s) => s.id === t.id));
-  const yarns = await yarnsOfTextures(user.studioId, textures);
+  const yarns = (await yarnsOfTextures(user.studioId, textures)).map((y) => yarnForViewer(user, y));
   const machine = { construction: style.construction, gauge: style.machine.gauge, maxYarns: style.machine.maxYarns };
   return (
     <BodyMapEditor
