@@ -6,5 +6,6 @@ export const workspaceSections = [
   { slug: 'fit', label: 'Fit' },
   { slug: 'mill-pack', label: 'Mill pack' },
   { slug: 'test-knits', label: 'Test knits' },
+  { slug: 'quote', label: 'Quote' },
   { slug: 'history', label: 'History' },
 ] as const;

@@ -50,7 +50,10 @@ export const briefAnswersSchema = z
     colourIntent: text(1000),
     tones: z.preprocess(blankToNull, z.coerce.number().int('Whole tones only').min(1, 'At least one tone').max(12, 'At most 12 tones').nullable()).default(null),
     targetPrice: num('Target price', 0, 100_000).default(null),
-    orderBySize: z.record(z.string().min(1).max(12), z.coerce.number().int('Whole garments only').min(0, 'At least 0').max(10_000_000)).default({}),
+    orderBySize: z.preprocess(
+      (v) => (v && typeof v === 'object' && !Array.isArray(v) ? Object.fromEntries(Object.entries(v).filter(([, n]) => blankToNull(n) !== null)) : v),
+      z.record(z.string().min(1).max(12), z.coerce.number({ error: 'Garments must be a number' }).int('Whole garments only').min(0, 'At least 0').max(10_000_000, 'At most 10,000,000')),
+    ).default({}),
     sampleDate: date,
     deliveryDate: date,
     fibresToAvoid: z.array(z.enum(fibreIds as [FibreId, ...FibreId[]])).max(30).default([]),

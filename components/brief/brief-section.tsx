@@ -1,0 +1,36 @@
+'use client';
+
+import { Card, Notice } from '@/components/ui/card';
+import { BriefForm } from './brief-form';
+import { ReferenceBoard } from './reference-board';
+import { BriefChecksPanel } from './brief-checks-panel';
+import { useBrief, useBriefChecks, useReferences } from './use-brief';
+
+/** The questionnaire, the reference board and the Brief vs plan panel, below the style form. */
+export function BriefSection({ styleId, sizes, editable }: { styleId: string; sizes: string[]; editable: boolean }) {
+  const brief = useBrief(styleId);
+  const refs = useReferences(styleId);
+  const checks = useBriefChecks(styleId);
+  return (
+    <div className="mt-5 grid grid-cols-1 gap-5 xl:grid-cols-[1fr_340px]" data-testid="brief-section">
+      <div className="space-y-5">
+        <Card title="Client brief">
+          {brief.data ? (
+            <BriefForm key={brief.data.version} styleId={styleId} brief={brief.data} sizes={sizes} readOnly={!editable} />
+          ) : brief.error ? <Notice tone="error">{brief.error.message}</Notice> : <p className="text-sm text-ink-faint">Loading the brief…</p>}
+        </Card>
+        <Card title="Reference board">
+          {refs.data ? <ReferenceBoard styleId={styleId} references={refs.data} readOnly={!editable} /> : refs.error ? <Notice tone="error">{refs.error.message}</Notice> : <p className="text-sm text-ink-faint">Loading…</p>}
+        </Card>
+      </div>
+      <Card title="Brief vs plan">
+        {checks.data ? (
+          <>
+            {checks.data.saved ? null : <p className="mb-2 text-xs text-ink-faint">No brief saved yet: fill in the questionnaire to check the plan against it.</p>}
+            <BriefChecksPanel checks={checks.data.checks} />
+          </>
+        ) : checks.error ? <Notice tone="error">{checks.error.message}</Notice> : <p className="text-sm text-ink-faint">Checking…</p>}
+      </Card>
+    </div>
+  );
+}
