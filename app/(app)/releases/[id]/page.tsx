@@ -65,11 +65,18 @@ export default async function ReleasePage({ params }: { params: Promise<{ id: st
           <Card title="Textures">
             <ul className="grid grid-cols-1 gap-4 md:grid-cols-2">
               {facts.map((f) => {
-                const reps = repeatsForMinSize(f.texture, 60, 180);
-                const svg = drawingToSvg(renderTile(f.texture, yarnHex, { ...reps, pxPerCm: 60 }), { width: '100%', height: '160' });
+                // A small tile of whole repeats, repeated by the browser (magnified 3×): it tiles with no seam.
+                const reps = repeatsForMinSize(f.texture, 100, 40);
+                const tile = renderTile(f.texture, yarnHex, { ...reps, pxPerCm: 100 });
+                const url = `url("data:image/svg+xml,${encodeURIComponent(drawingToSvg(tile))}")`;
                 return (
                   <li key={f.texture.id} className="flex gap-3">
-                    <div className="h-40 w-40 shrink-0 overflow-hidden rounded border border-rule" dangerouslySetInnerHTML={{ __html: svg }} />
+                    <div
+                      role="img"
+                      aria-label={`${f.texture.name}, rendered, magnified 3×`}
+                      className="h-40 w-40 shrink-0 rounded border border-rule"
+                      style={{ backgroundImage: url, backgroundSize: `${tile.widthPx * 3}px ${tile.heightPx * 3}px`, backgroundRepeat: 'repeat' }}
+                    />
                     <div className="text-sm">
                       <div className="flex items-center gap-2 font-medium"><span className="inline-block h-3 w-3 rounded-sm" style={{ background: f.indexHex }} />{f.texture.name}</div>
                       <div className="figures text-ink-soft">{f.texture.repeat.needles} × {f.texture.repeat.courses} · {f.repeatMm.widthMm.toFixed(2)} × {f.repeatMm.heightMm.toFixed(2)} mm</div>
