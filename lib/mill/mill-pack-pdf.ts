@@ -315,8 +315,8 @@ export async function millPackPdf(
   y = begin('Yarn list and consumption per size');
   const tf = textureFacts(data);
   y = table(p, { ...head, title: 'Yarn list' }, y, [
-    { title: 'Yarn', width: 46 }, { title: 'Ref.', width: 24 }, { title: 'Count', width: 22 }, { title: 'Fibres', width: 30 },
-    { title: 'Colour', width: 30 }, { title: 'Feeds', width: w - 2 * m - 152 },
+    { title: 'Yarn', width: 44 }, { title: 'Ref.', width: 30 }, { title: 'Count', width: 22 }, { title: 'Fibres', width: 28 },
+    { title: 'Colour', width: 28 }, { title: 'Feeds', width: w - 2 * m - 152 },
   ], data.yarns.map((yn) => [
     yn.name, yn.supplierRef, yarnCountText(yn), yarnFibreText(yn.fibres), yarnColourText(yn.colour),
     tf.filter((f) => f.feeders.some((l) => l.ground.id === yn.id || l.plated?.id === yn.id)).map((f) => f.texture.name).join(', '),

@@ -42,7 +42,7 @@ export default async function ReleasePage({ params }: { params: Promise<{ id: st
         title={<span>{release.styleCode} {release.styleName} · <span className="figures">revision {release.revision}</span></span>}
       >
         <p className="mt-1 text-sm text-ink-soft">
-          Released <time className="figures" dateTime={release.releasedAt}>{release.releasedAt.slice(0, 16).replace('T', ' ')}</time> by {release.releasedBy ?? '—'} to {release.mills.map((m) => m.name).join(', ') || '—'}. This is the revision as it was released; later edits to the style do not change it.
+          Released <time className="figures" dateTime={release.releasedAt}>{release.releasedAt.slice(0, 16).replace('T', ' ')}</time> by {release.releasedBy ?? '—'}{release.mills.length ? ` to ${release.mills.map((m) => m.name).join(', ')}` : ''}. This is the revision as it was released; later edits to the style do not change it.
         </p>
         {release.note ? <p className="mt-1 text-sm">Note: {release.note}</p> : null}
       </PageHeader>
