@@ -403,6 +403,9 @@ export const matrix: Record<string, Entry> = {
       return c.delete(`/api/styles/${styleId}/trims/${trim.id}`);
     },
   },
+  // The yarn calculator and its order CSV: everyone who sees the style (prices only for the studio, see yarn-calculator.test.ts).
+  'GET /api/styles/[id]/yarn-calculator': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/yarn-calculator?qty=M:10`) },
+  'GET /api/styles/[id]/yarn-order.csv': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/yarn-order.csv?qty=M:10`) },
   'GET /api/library/colour-standards': { expect: staffOnly(200), run: (c) => c.get('/api/library/colour-standards') },
   'POST /api/library/colour-standards': {
     expect: colourEditors(201),
