@@ -1,16 +1,18 @@
 #!/usr/bin/env bash
 # Local PostgreSQL for Needlemap, from Debian's `postgresql` package, on 127.0.0.1 only.
 #   bash db/setup.sh start   install if missing, create the cluster once, start (safe to run twice)
-#   bash db/setup.sh stop    stop the server
+#   bash db/setup.sh stop    stop the server (NEEDLEMAP_PG_STOP_MODE=immediate for a crash-like stop)
 #   bash db/setup.sh status
 # The data directory lives inside the project (.pgdata/, git-ignored). The server runs as the
 # `postgres` OS user; the app connects as role `needlemap` over TCP with a password.
+# NEEDLEMAP_PG_PORT and NEEDLEMAP_PGDATA (an absolute folder) run a second, separate cluster, e.g.
+# for the fault tests, which stop and start their own server.
 set -euo pipefail
 
 cd "$(dirname "$0")/.."
 ROOT="$PWD"
 PGPORT="${NEEDLEMAP_PG_PORT:-54329}"
-PGROOT="$ROOT/.pgdata"
+PGROOT="${NEEDLEMAP_PGDATA:-$ROOT/.pgdata}"
 DATA="$PGROOT/data"
 RUN="$PGROOT/run"
 LOG="$PGROOT/postgres.log"
@@ -42,7 +44,7 @@ ensure_installed() {
 
 check_traversable() {
   # The postgres OS user must be able to reach the data directory through every parent folder.
-  local p="$ROOT"
+  local p="$PGROOT"
   while [ "$p" != "/" ]; do
     if ! as_postgres test -x "$p"; then
       echo "The postgres OS user cannot enter $p (its mode is $(stat -c %a "$p"))." >&2
@@ -102,7 +104,7 @@ drop_db() {
 stop() {
   local bin; bin="$(find_bin)" || { echo "PostgreSQL not installed"; return 0; }
   if is_running; then
-    as_postgres "$bin/pg_ctl" -D "$DATA" -m fast -w stop >/dev/null
+    as_postgres "$bin/pg_ctl" -D "$DATA" -m "${NEEDLEMAP_PG_STOP_MODE:-fast}" -w stop >/dev/null
     echo "PostgreSQL stopped"
   else
     echo "PostgreSQL is not running"

@@ -15,13 +15,36 @@ export const notFound = (what = 'Not found.') => new HttpError(404, what);
 export const conflict = (message: string, body: Record<string, unknown> = {}) =>
   new HttpError(409, message, body);
 
-/** True for errors that mean the database cannot be reached (down, restarting, pool timeout). */
-export function isDatabaseUnavailable(err: unknown): boolean {
-  if (!err || typeof err !== 'object') return false;
-  const e = err as { code?: string; name?: string; message?: string };
-  const codes = ['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', '57P01', '57P02', '57P03', '08006', '08001', '08003'];
-  if (e.code && codes.includes(e.code)) return true;
+const unreachableCodes = new Set([
+  'ECONNREFUSED', 'ECONNRESET', 'ECONNABORTED', 'ETIMEDOUT', 'EPIPE', 'EHOSTUNREACH', 'ENETUNREACH', 'ENOTFOUND', 'EAI_AGAIN',
+]);
+const unreachableMessage =
+  /Connection terminated|Connection ended unexpectedly|not queryable|timeout acquiring a connection|the database system is (starting up|shutting down|in recovery mode)|terminating connection due to administrator command|server closed the connection unexpectedly/i;
+
+/**
+ * True for errors that mean the database cannot be reached (down, restarting, pool timeout, a
+ * connection lost in the middle of a transaction). PostgreSQL's SQLSTATE classes 08 (connection
+ * exception) and 57P (operator intervention: shutdown, crash, cannot connect now) count, as do
+ * socket errors; the error's `cause` and an AggregateError's `errors` are looked at too.
+ */
+export function isDatabaseUnavailable(err: unknown, depth = 0): boolean {
+  if (!err || typeof err !== 'object' || depth > 4) return false;
+  const e = err as { code?: unknown; name?: string; message?: string; cause?: unknown; errors?: unknown };
+  const code = typeof e.code === 'string' ? e.code : '';
+  if (unreachableCodes.has(code) || /^08[0-9A-Z]{3}$/.test(code) || /^57P0[1-3]$/.test(code)) return true;
   if (e.name === 'KnexTimeoutError') return true;
-  const m = e.message ?? '';
-  return /Connection terminated|timeout acquiring a connection|the database system is (starting up|shutting down)/i.test(m);
+  if (unreachableMessage.test(e.message ?? '')) return true;
+  if (Array.isArray(e.errors) && e.errors.some((x) => isDatabaseUnavailable(x, depth + 1))) return true;
+  return isDatabaseUnavailable(e.cause, depth + 1);
+}
+
+/**
+ * True for PostgreSQL data exceptions (SQLSTATE class 22: a value out of range, text the column
+ * cannot hold, a malformed uuid or number). They come from the request's values, so they are the
+ * caller's 400, not our 500; the route schemas should catch them first.
+ */
+export function isDataException(err: unknown): boolean {
+  if (!err || typeof err !== 'object') return false;
+  const e = err as { code?: unknown; severity?: unknown };
+  return typeof e.code === 'string' && /^22[0-9A-Z]{3}$/.test(e.code) && typeof e.severity === 'string';
 }
