@@ -13,12 +13,13 @@ import {
 import { coveredYarn, validateYarn, type LabColour, type Yarn, type YarnColour, type YarnFibre } from '@/lib/knit/yarn';
 import { trimKinds, trimMethods } from '@/lib/rules/trim';
 import { chartLimits, decodeCourse, encodeCells } from '@/lib/library/chart';
+import { readDecimal } from './number';
 
 // ---------------------------------------------------------------------------------------------
 // Small helpers
 
 const isBlank = (v: unknown) => v === '' || v === null || v === undefined || (typeof v === 'number' && Number.isNaN(v));
-const toNumber = (v: unknown) => (typeof v === 'string' && v.trim() !== '' ? Number(v.replace(',', '.')) : v);
+const toNumber = (v: unknown) => (typeof v === 'string' && v.trim() !== '' ? readDecimal(v.replace(',', '.')) : v);
 
 /** A required number between `min` and `max`; form strings are read as numbers. */
 const num = (what: string, min: number, max: number, opts: { exclusiveMin?: boolean } = {}) =>

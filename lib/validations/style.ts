@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { readDecimal } from './number';
 
 export const garmentTypes = ['long-sleeve-top', 'short-sleeve-top', 'tank', 'sports-bra', 'legging', 'shorts'] as const;
 export type GarmentType = (typeof garmentTypes)[number];
@@ -30,21 +31,23 @@ export const styleStatusLabels: Record<StyleStatus, string> = {
   'production-ready': 'Production ready',
 };
 
-const positive = (what: string) => z.coerce.number({ error: `${what} must be a number` }).positive(`${what} must be above zero`);
+/** A number from JSON, or from a form field's text in decimal notation (lib/validations/number.ts). */
+const numeric = <T extends z.ZodType>(inner: T) => z.preprocess(readDecimal, inner);
+
 
 export const circularMachineSchema = z.object({
   kind: z.literal('circular'),
-  diameterIn: positive('Cylinder diameter').max(40, 'Cylinder diameter above 40 in is not a body-size machine'),
-  gauge: positive('Gauge').max(60, 'Gauge above 60 needles per inch is not realistic'),
-  needleMultiple: z.coerce.number().int().positive().max(64).default(4),
-  feeders: z.coerce.number().int().min(1, 'At least one feeder').max(200),
-  maxYarns: z.coerce.number().int().min(1).max(12).default(3),
+  diameterIn: numeric(z.number({ error: 'Cylinder diameter must be a number' }).positive('Cylinder diameter must be above zero').max(40, 'Cylinder diameter above 40 in is not a body-size machine')),
+  gauge: numeric(z.number({ error: 'Gauge must be a number' }).positive('Gauge must be above zero').max(60, 'Gauge above 60 needles per inch is not realistic')),
+  needleMultiple: numeric(z.number().int().positive().max(64)).default(4),
+  feeders: numeric(z.number().int().min(1, 'At least one feeder').max(200)),
+  maxYarns: numeric(z.number().int().min(1).max(12)).default(3),
 });
 export const flatMachineSchema = z.object({
   kind: z.literal('flat'),
-  gauge: positive('Gauge').max(60),
-  bedNeedles: z.coerce.number().int().min(20, 'A bed has at least 20 needles').max(2000),
-  maxYarns: z.coerce.number().int().min(1).max(16).default(6),
+  gauge: numeric(z.number({ error: 'Gauge must be a number' }).positive('Gauge must be above zero').max(60)),
+  bedNeedles: numeric(z.number().int().min(20, 'A bed has at least 20 needles').max(2000)),
+  maxYarns: numeric(z.number().int().min(1).max(16)).default(6),
 });
 export const machineSchema = z.discriminatedUnion('kind', [circularMachineSchema, flatMachineSchema]);
 export type MachineSetup = z.infer<typeof machineSchema>;

@@ -2,7 +2,7 @@ import { NextResponse } from 'next/server';
 import { route, parseBody } from '@/lib/api/handler';
 import { authorize } from '@/lib/auth/authorize';
 import { loadBodyMap, saveBodyMap } from '@/lib/db/body-map';
-import { bodyMapSaveSchema } from '@/lib/validations/body-map';
+import { bodyMapMaxBytes, bodyMapSaveSchema } from '@/lib/validations/body-map';
 import { idParamSchema } from '@/lib/validations/style';
 import { notFound } from '@/lib/api/errors';
 
@@ -21,7 +21,7 @@ export const GET = route<Params>(async (_req, params) => {
 export const PUT = route<Params>(async (req, params) => {
   const user = await authorize('style:edit');
   const { id } = idParamSchema.parse(params);
-  const input = await parseBody(req, bodyMapSaveSchema);
+  const input = await parseBody(req, bodyMapSaveSchema, { maxBytes: bodyMapMaxBytes });
   const { version } = await saveBodyMap(user, id, input);
   return NextResponse.json({ version });
 });
