@@ -16,7 +16,7 @@ export function BriefSection({ styleId, sizes, editable }: { styleId: string; si
       <div className="space-y-5">
         <Card title="Client brief">
           {brief.data ? (
-            <BriefForm key={brief.data.version} styleId={styleId} brief={brief.data} sizes={sizes} readOnly={!editable} />
+            <BriefForm styleId={styleId} brief={brief.data} sizes={sizes} readOnly={!editable} />
           ) : brief.error ? <Notice tone="error">{brief.error.message}</Notice> : <p className="text-sm text-ink-faint">Loading the brief…</p>}
         </Card>
         <Card title="Reference board">

@@ -135,7 +135,7 @@ export function QuoteSection({ styleId, initial, editable }: { styleId: string; 
         </div>
       </Card>
       <Card title="Entries">
-        <Entries key={q.version} q={q} editable={editable} onSaved={(n) => qc.setQueryData(key(styleId), n)} />
+        <Entries q={q} editable={editable} onSaved={(n) => qc.setQueryData(key(styleId), n)} />
       </Card>
     </div>
   );

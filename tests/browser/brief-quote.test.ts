@@ -27,6 +27,7 @@ describe('the brief and the quote in the browser', () => {
   it('fill a brief, upload a reference, see a Brief vs plan finding, produce a quote and download its PDF', async () => {
     const style = await freshStyle();
     const page = await signIn(browser, accounts.designer);
+    page.setDefaultTimeout(25_000);
     await page.goto(`${baseUrl()}/styles/${style.id}`);
     const form = page.getByRole('form', { name: 'Brief questionnaire' });
     await form.waitFor();
@@ -68,5 +69,5 @@ describe('the brief and the quote in the browser', () => {
     const file = await download.path();
     expect(readFileSync(file).subarray(0, 5).toString('latin1')).toBe('%PDF-');
     await page.context().close();
-  });
+  }, 120_000);
 });
