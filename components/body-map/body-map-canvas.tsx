@@ -8,6 +8,7 @@ import { zonesInDrawOrder } from '@/lib/editor';
 import type { Panel, StitchPoint, Zone } from '@/lib/knit/panel';
 import type { Texture } from '@/lib/knit/texture';
 import type { Yarn } from '@/lib/knit/yarn';
+import type { StitchBox } from '@/lib/rules/trim';
 import { useTexturePattern } from '@/components/texture/texture-tile';
 
 export type RulerUnit = 'stitches' | 'cm' | 'in';
@@ -26,6 +27,8 @@ export interface CanvasProps {
   yarnColours?: Readonly<Record<string, string>>;
   /** Flat index colour of a texture (distinct within the style). */
   colourOf: (textureId: string) => string;
+  /** The style's trims, drawn as boxes over the zones (placed and edited in the Trims section). */
+  trims?: readonly { id: string; panelId: string; box: StitchBox; label: string }[];
 }
 
 const INK = '#1f2428';
@@ -147,7 +150,7 @@ function Rulers({ panel, layout, unit }: { panel: Panel; layout: PanelLayout; un
   return <>{out}</>;
 }
 
-export default function BodyMapCanvas({ editor, state, textures, yarns, fill, rulerUnit, highlight, yarnColours, colourOf }: CanvasProps) {
+export default function BodyMapCanvas({ editor, state, textures, yarns, fill, rulerUnit, highlight, yarnColours, colourOf, trims }: CanvasProps) {
   const box = useRef<HTMLDivElement>(null);
   const [size, setSize] = useState({ w: 800, h: 600 });
 
@@ -232,6 +235,12 @@ export default function BodyMapCanvas({ editor, state, textures, yarns, fill, ru
                   />
                 ))}
                 <CutLines panel={panel} />
+                {trims?.filter((t) => t.panelId === panel.id).map((t) => (
+                  <Group key={t.id} x={t.box.x} y={t.box.y} listening={false}>
+                    <Rect width={t.box.width} height={t.box.height} fill="rgba(255,255,255,0.55)" stroke={INK} strokeWidth={1} dash={[3, 2]} strokeScaleEnabled={false} />
+                    <Text y={-14 / layout.pxPerCourse} scaleX={1 / layout.pxPerNeedle} scaleY={1 / layout.pxPerCourse} text={t.label} fontSize={10} fill={INK} />
+                  </Group>
+                ))}
               </Group>
             );
           })}

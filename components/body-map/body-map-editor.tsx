@@ -33,6 +33,8 @@ export interface BodyMapEditorProps {
   machine: { construction: 'seamless' | 'flat'; gauge: number; maxYarns: number };
   readOnly: boolean;
   baseSize: string;
+  /** The style's trims to show over the map, by panel id. */
+  trims?: readonly { id: string; panelId: string; box: { x: number; y: number; width: number; height: number }; label: string }[];
 }
 
 /** The previous summary per editor, so unchanged panels keep their raster between edits. */
@@ -46,7 +48,7 @@ function textureLookup(textures: readonly Texture[]): TextureLookup {
   return out;
 }
 
-export function BodyMapEditor({ styleId, initial, textures, yarns, machine, readOnly, baseSize }: BodyMapEditorProps) {
+export function BodyMapEditor({ styleId, initial, textures, yarns, machine, readOnly, baseSize, trims }: BodyMapEditorProps) {
   const [editor] = useState(
     () =>
       new Editor({
@@ -125,7 +127,7 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, read
         ) : null}
         {state.notice ? <div role="status" className="border-b border-rule bg-ochre-50 px-3 py-1.5 text-xs text-ochre-700">{state.notice}</div> : null}
         <div className="relative min-h-0 flex-1 bg-[#f2f1ec]" tabIndex={0} aria-label="Body map canvas">
-          <BodyMapCanvas editor={editor} state={state} textures={textureMap} yarns={yarns} fill={fill} rulerUnit={rulerUnit} highlight={highlight} colourOf={colourOf} />
+          <BodyMapCanvas editor={editor} state={state} textures={textureMap} yarns={yarns} fill={fill} rulerUnit={rulerUnit} highlight={highlight} colourOf={colourOf} trims={trims} />
           {state.helpOpen ? <HelpPanel editor={editor} /> : null}
           <div className="absolute bottom-3 right-3 z-10 max-w-[90%] rounded-md border border-rule bg-panel/95 shadow-sm">
             <SaveState status={status} onReload={reloadLatest} onKeepCopy={keepCopy} onOverwrite={overwrite} />

@@ -227,22 +227,29 @@ export function TrimsWorkspace({ styleId, panels, generated, textures, yarns, co
     }
   };
 
-  /** A drag on the canvas: the draft moves; a saved trim is saved at once. */
-  const move = async (id: string, box: StitchBox) => {
-    if (draft && (draft.id ?? 'new') === id) {
-      setDraft({ ...draft, x: box.x, y: box.y });
+  /**
+   * A drag on the canvas. A trim not added yet only moves; a saved one is saved at its new place at
+   * once (its stored size: size edits in the form wait for "Save trim"), and the form follows.
+   */
+  const move = async (id: string, to: StitchBox) => {
+    if (id === 'new') {
+      if (draft) setDraft({ ...draft, x: to.x, y: to.y });
       return;
     }
     const t = trims.find((x) => x.id === id);
     if (!t || !editable) return;
+    const box = { ...t.box, x: to.x, y: to.y };
     setTrims((ts) => ts.map((x) => (x.id === id ? { ...x, box } : x)));
+    if (draft?.id === id) setDraft({ ...draft, x: to.x, y: to.y });
     setStatus({ kind: 'saving' });
     try {
       const res = await api<{ trim: StyleTrim }>(`/api/styles/${styleId}/trims/${id}`, { method: 'PATCH', json: { version: t.version, box } });
       setTrims((ts) => ts.map((x) => (x.id === id ? res.trim : x)));
+      setDraft((d) => (d && d.id === id ? { ...d, version: res.trim.version } : d));
       setStatus({ kind: 'idle' });
     } catch (err) {
       setTrims((ts) => ts.map((x) => (x.id === id ? t : x)));
+      setDraft((d) => (d && d.id === id ? { ...d, x: t.box.x, y: t.box.y } : d));
       fail(err);
     }
   };

@@ -3,6 +3,8 @@ import { can } from '@/lib/auth/roles';
 import { loadBodyMap } from '@/lib/db/body-map';
 import { listStyleTextures, listTextures, yarnsOfTextures } from '@/lib/db/textures';
 import { yarnForViewer } from '@/lib/db/yarns';
+import { listTrims } from '@/lib/db/trims';
+import { trimKindLabels } from '@/lib/validations/library';
 import { BodyMapEditor } from '@/components/body-map/body-map-editor';
 import { notFound } from 'next/navigation';
 import { workspaceStyle } from '@/components/workspace/workspace-style';
@@ -11,8 +13,13 @@ export const metadata: Metadata = { title: 'Body map' };
 
 export default async function BodyMapPage({ params }: { params: Promise<{ id: string }> }) {
   const { user, style } = await workspaceStyle((await params).id);
-  const [map, styleTextures] = await Promise.all([loadBodyMap(user, style.id), listStyleTextures(user, style.id)]);
+  const [map, styleTextures, styleTrims] = await Promise.all([loadBodyMap(user, style.id), listStyleTextures(user, style.id), listTrims(user, style.id)]);
   if (!map) notFound();
+  const panelIdOf = new Map(map.panels.map((p) => [p.kind, p.id]));
+  const trims = styleTrims.flatMap((t) => {
+    const panelId = panelIdOf.get(t.panelKind);
+    return panelId ? [{ id: t.id, panelId, box: t.box, label: t.name || trimKindLabels[t.kind] }] : [];
+  });
   // Editors choose from the whole library; everyone else sees the style's own textures.
   const library = can(user.role, 'library:read') ? await listTextures(user) : [];
   const byId = new Map([...styleTextures.textures, ...library].map((t) => [t.id, t]));
@@ -28,6 +35,7 @@ export default async function BodyMapPage({ params }: { params: Promise<{ id: st
       machine={machine}
       readOnly={!can(user.role, 'style:edit')}
       baseSize={style.sizes.base}
+      trims={trims}
     />
   );
 }
