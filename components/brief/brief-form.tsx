@@ -132,7 +132,7 @@ export function BriefForm({ styleId, brief, sizes, readOnly }: { styleId: string
             <div className="mb-1 text-xs font-medium text-ink-soft">Fibres to avoid</div>
             <div className="flex flex-wrap gap-x-4 gap-y-1">
               {fibreIds.map((f) => (
-                <label key={f} className="flex items-center gap-1.5 text-sm"><input type="checkbox" value={f} {...register('fibresToAvoid')} />{fibres[f].names.eu}</label>
+                <label key={f} className="flex items-center gap-1.5 text-sm"><input type="checkbox" value={f} {...register('fibresToAvoid')} />{f === 'polyester-cd' ? 'cationic-dyeable polyester' : fibres[f].names.eu}</label>
               ))}
             </div>
           </div>

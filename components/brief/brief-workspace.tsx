@@ -4,13 +4,18 @@ import { Card, Notice } from '@/components/ui/card';
 import { BriefForm } from './brief-form';
 import { ReferenceBoard } from './reference-board';
 import { BriefChecksPanel } from './brief-checks-panel';
+import type { Brief, BriefReference } from '@/lib/db/briefs';
+import type { BriefCheck } from '@/lib/rules/brief';
 import { useBrief, useBriefChecks, useReferences } from './use-brief';
 
 /** The questionnaire, the reference board and the Brief vs plan panel, below the style form. */
-export function BriefSection({ styleId, sizes, editable }: { styleId: string; sizes: string[]; editable: boolean }) {
-  const brief = useBrief(styleId);
-  const refs = useReferences(styleId);
-  const checks = useBriefChecks(styleId);
+export function BriefWorkspace({ styleId, sizes, editable, initial }: {
+  styleId: string; sizes: string[]; editable: boolean;
+  initial: { brief: Brief; references: BriefReference[]; checks: { checks: BriefCheck[]; saved: boolean } };
+}) {
+  const brief = useBrief(styleId, initial.brief);
+  const refs = useReferences(styleId, initial.references);
+  const checks = useBriefChecks(styleId, initial.checks);
   return (
     <div className="mt-5 grid grid-cols-1 gap-5 xl:grid-cols-[1fr_340px]" data-testid="brief-section">
       <div className="space-y-5">

@@ -9,17 +9,19 @@ export const briefKey = (styleId: string) => ['brief', styleId] as const;
 export const referencesKey = (styleId: string) => ['brief-references', styleId] as const;
 export const checksKey = (styleId: string) => ['brief-checks', styleId] as const;
 
-export function useBrief(styleId: string) {
-  return useQuery({ queryKey: briefKey(styleId), queryFn: () => api<{ brief: Brief }>(`/api/styles/${styleId}/brief`).then((r) => r.brief) });
+export function useBrief(styleId: string, initialData?: Brief) {
+  return useQuery({ queryKey: briefKey(styleId), initialData, staleTime: 30_000, queryFn: () => api<{ brief: Brief }>(`/api/styles/${styleId}/brief`).then((r) => r.brief) });
 }
 
-export function useReferences(styleId: string) {
+export function useReferences(styleId: string, initialData?: BriefReference[]) {
   return useQuery({
     queryKey: referencesKey(styleId),
+    initialData,
+    staleTime: 30_000,
     queryFn: () => api<{ references: BriefReference[] }>(`/api/styles/${styleId}/brief/references`).then((r) => r.references),
   });
 }
 
-export function useBriefChecks(styleId: string) {
-  return useQuery({ queryKey: checksKey(styleId), queryFn: () => api<{ checks: BriefCheck[]; saved: boolean }>(`/api/styles/${styleId}/brief/checks`) });
+export function useBriefChecks(styleId: string, initialData?: { checks: BriefCheck[]; saved: boolean }) {
+  return useQuery({ queryKey: checksKey(styleId), initialData, staleTime: 30_000, queryFn: () => api<{ checks: BriefCheck[]; saved: boolean }>(`/api/styles/${styleId}/brief/checks`) });
 }

@@ -4,7 +4,8 @@ import { Fragment, useState } from 'react';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { api, ApiError } from '@/lib/api/client';
 import type { StyleQuote } from '@/lib/db/quotes';
-import { makingUpKeys, makingUpLabels } from '@/lib/cost/rates';
+import { makingUpKeys, makingUpLabels, rateLabels } from '@/lib/cost/rates';
+import { StudioRates } from './studio-rates';
 import type { QuoteInputs } from '@/lib/validations/quote';
 import { Card, Notice } from '@/components/ui/card';
 import { Button, ButtonLink } from '@/components/ui/button';
@@ -130,13 +131,18 @@ export function QuoteSection({ styleId, initial, editable }: { styleId: string; 
           {q.basis.map((b) => <p key={b} className="text-xs text-ink-soft">{b}</p>)}
           {q.quote.problems.map((p) => <Notice key={p} tone="warn">{p}</Notice>)}
           <SizeTable q={q} />
-          {q.studio.defaults.length ? <p className="text-xs text-ochre-700">Some rates are an {q.studio.note}: {q.studio.defaults.join(', ')}.</p> : null}
+          {q.studio.defaults.length ? <p className="text-xs text-ochre-700">Still an {q.studio.note}: {q.studio.defaults.map((k) => rateLabels[k] ?? k).join(', ')}. Set them under Studio rates.</p> : null}
           <p className="text-xs text-ink-faint">Studio only: costs, prices and margins are never shown to the mill or the client.</p>
         </div>
       </Card>
-      <Card title="Entries">
-        <Entries q={q} editable={editable} onSaved={(n) => qc.setQueryData(key(styleId), n)} />
-      </Card>
+      <div className="space-y-5">
+        <Card title="Entries for this style">
+          <Entries q={q} editable={editable} onSaved={(n) => qc.setQueryData(key(styleId), n)} />
+        </Card>
+        <Card title="Studio rates">
+          <StudioRates studio={q.studio} editable={editable} onSaved={() => void qc.invalidateQueries({ queryKey: key(styleId) })} />
+        </Card>
+      </div>
     </div>
   );
 }

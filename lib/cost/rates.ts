@@ -91,3 +91,16 @@ export function resolveRates(set: RatesSet | null | undefined): { rates: CostRat
   }
   return { rates, defaults };
 }
+
+/** Plain names of the rates, for saying which are still example values. */
+export const rateLabels: Record<string, string> = {
+  currency: 'currency',
+  machineMinuteRate: 'machine-minute rate',
+  efficiency: 'efficiency',
+  circularRpm: 'circular machine speed',
+  flatPassesPerMinute: 'V-bed passes per minute',
+  flatSystems: 'V-bed systems',
+  wasteAllowance: 'yarn waste allowance',
+  ...Object.fromEntries(makingUpKeys.map((k) => [`makingUp.${k}`, makingUpLabels[k].toLowerCase()])),
+  ...Object.fromEntries(trimCostKinds.map((k) => [`trimUnitCost.${k}`, `${k} trims`])),
+};

@@ -5,6 +5,7 @@
 import { createPdf, font, ink, pageNumbers, pdfBytes, wrappedText, type PdfPage } from '@/lib/mill/pdf';
 import type { PaperSize } from '@/lib/mill/pack-data';
 import type { StyleQuote } from '@/lib/db/quotes';
+import { rateLabels } from '@/lib/cost/rates';
 
 const money = (n: number | null, c: string) => (n === null ? '—' : `${n.toFixed(2)} ${c}`);
 
@@ -41,7 +42,7 @@ export function quotePdf(q: StyleQuote, paper: PaperSize = 'a4'): Uint8Array {
   for (const line of [...q.basis, ...q.quote.problems]) y += wrappedText(doc, line, m, y, w - 2 * m, 4);
   if (q.studio.defaults.length) {
     font(doc, 'regular', 8.5, ink.warn);
-    y += wrappedText(doc, `Rates still at an example value (${q.studio.note}): ${q.studio.defaults.join(', ')}.`, m, y, w - 2 * m, 4);
+    y += wrappedText(doc, `Rates still at an example value (${q.studio.note}): ${q.studio.defaults.map((k) => rateLabels[k] ?? k).join(', ')}.`, m, y, w - 2 * m, 4);
   }
   y += 3;
   // The order by size.
