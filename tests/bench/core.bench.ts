@@ -230,3 +230,19 @@ console.log(`whole recomputation ${tWhole.toFixed(1)} ms against the 50 ms aim; 
 console.log('');
 console.log(`stitches knitted ${rasters.reduce((s, r) => s + r.knitted, 0).toLocaleString('en')}, kept ${rasters.reduce((s, r) => s + r.inside, 0).toLocaleString('en')}; yarn per garment ${consumption.grossGrams.toFixed(1)} g incl. 5 % allowance`);
 console.log(`EU label: ${eu.text}`);
+
+// The texture renderer: a 2 × 2 tile of a 24 × 24 repeat (the size the body map asks for when zoomed in).
+{
+  const { renderTile, yarnColourMap } = await import('../../lib/knit/render');
+  const rows = Array.from({ length: 24 }, (_, c) => Array.from({ length: 24 }, (_, n) => (['knit', 'knit', 'tuck', 'knit', 'miss'] as const)[(c * 7 + n * 3) % 5]!));
+  const tex = { ...textures[0]!, id: 'bench-render', repeat: { needles: 24, courses: 24, cells: rows }, feeders: rows.map(() => textures[0]!.feeders[0]!) };
+  const colours = yarnColourMap(yarns);
+  const times: number[] = [];
+  for (let i = 0; i < 40; i++) {
+    const t0 = performance.now();
+    renderTile(tex, colours, { repeatsX: 2, repeatsY: 2, pxPerCm: 100 });
+    times.push(performance.now() - t0);
+  }
+  times.sort((a, b) => a - b);
+  console.log(`render: 2 × 2 tile of a 24 × 24 repeat, median ${times[20]!.toFixed(2)} ms (aim: well under 5 ms)`);
+}
