@@ -3,13 +3,14 @@
 import Link from 'next/link';
 import { usePathname } from 'next/navigation';
 import { workspaceSections } from './sections';
+import { can, type Role } from '@/lib/auth/roles';
 
-export function SectionTabs({ styleId }: { styleId: string }) {
+export function SectionTabs({ styleId, role }: { styleId: string; role: Role }) {
   const path = usePathname();
   const base = `/styles/${styleId}`;
   return (
     <nav aria-label="Style sections" className="-mb-px flex gap-1 overflow-x-auto">
-      {workspaceSections.map((s) => {
+      {workspaceSections.filter((s) => !s.permission || can(role, s.permission)).map((s) => {
         const href = s.slug ? `${base}/${s.slug}` : base;
         const active = s.slug ? path.startsWith(href) : path === base;
         return (

@@ -1,5 +1,7 @@
-/** The style workspace's sections, in the design's order. Only those built so far are listed. */
-export const workspaceSections = [
+import type { Permission } from '@/lib/auth/roles';
+
+/** The style workspace's sections, in the design's order; a section with a permission shows only to roles that have it. */
+export const workspaceSections: readonly { slug: string; label: string; permission?: Permission }[] = [
   { slug: '', label: 'Brief' },
   { slug: 'body-map', label: 'Body map' },
   { slug: 'textures', label: 'Textures' },
@@ -9,6 +11,6 @@ export const workspaceSections = [
   { slug: 'trims', label: 'Trims' },
   { slug: 'mill-pack', label: 'Mill pack' },
   { slug: 'test-knits', label: 'Test knits' },
-  { slug: 'quote', label: 'Quote' },
-  { slug: 'history', label: 'History' },
-] as const;
+  { slug: 'quote', label: 'Quote', permission: 'quote:read' },
+  { slug: 'history', label: 'History', permission: 'library:read' },
+];

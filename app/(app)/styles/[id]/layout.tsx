@@ -4,7 +4,7 @@ import { SectionTabs } from '@/components/workspace/section-tabs';
 import { workspaceStyle } from '@/components/workspace/workspace-style';
 
 export default async function StyleWorkspaceLayout({ children, params }: { children: React.ReactNode; params: Promise<{ id: string }> }) {
-  const { style } = await workspaceStyle((await params).id);
+  const { user, style } = await workspaceStyle((await params).id);
   return (
     <div>
       <div className="mb-4 border-b border-rule">
@@ -25,7 +25,7 @@ export default async function StyleWorkspaceLayout({ children, params }: { child
             </div>
           </div>
         </div>
-        <SectionTabs styleId={style.id} />
+        <SectionTabs styleId={style.id} role={user.role} />
       </div>
       {children}
     </div>
