@@ -152,7 +152,7 @@ export function StyleTextures({ styleId, initial, library, yarns, gauge, usage, 
         title={`Textures of this style · ${textures.length}`}
         actions={
           <span className="text-xs text-ink-faint" data-testid="textures-save-state">
-            {status.kind === 'saving' ? 'Saving…' : status.kind === 'saved' ? `Saved · version ${version}` : `Version ${version}`}
+            {!editable ? 'Read only' : status.kind === 'saving' ? 'Saving…' : status.kind === 'saved' ? `Saved · version ${version}` : `Version ${version}`}
           </span>
         }
         className="overflow-hidden [&>div]:p-0"
@@ -228,8 +228,14 @@ export function StyleTextures({ styleId, initial, library, yarns, gauge, usage, 
         <Card title="How textures are used">
           <div className="space-y-2 text-xs leading-5 text-ink-soft">
             <p>The body map fills zones and panel bases with these textures; the mill and the client read this list.</p>
-            <p>A texture the body map uses cannot be removed here: change its zones in the <Link className="text-spruce-700 underline" href={`/styles/${styleId}/body-map`}>body map</Link> first.</p>
-            {editable ? <p>Charts, feeders and densities are edited in the <Link className="text-spruce-700 underline" href="/library">studio library</Link>.</p> : null}
+            {editable ? (
+              <>
+                <p>A texture the body map uses cannot be removed here: change its zones in the <Link className="text-spruce-700 underline" href={`/styles/${styleId}/body-map`}>body map</Link> first.</p>
+                <p>Charts, feeders and densities are edited in the <Link className="text-spruce-700 underline" href="/library">studio library</Link>.</p>
+              </>
+            ) : (
+              <p>Each tile is the texture’s repeat drawn as loops in its yarns; the mill knits a test piece of every texture.</p>
+            )}
           </div>
         </Card>
       </aside>

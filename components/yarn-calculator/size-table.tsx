@@ -13,7 +13,7 @@ function basisNote(s: SizeFigures): string {
       return 'as drawn';
     case 'graded': {
       const factors = [...new Set(s.panels.map((p) => p.factor ?? 1).map((f) => f.toFixed(3)))];
-      return `× ${factors.join(' / ')}`;
+      return `× ${factors.join(' · ')}`;
     }
     case 'base-grams':
       return '≈ base';
@@ -82,7 +82,10 @@ export function SizeTable({ figures, yarnName, showCost }: { figures: YarnCalcul
       {showCost && figures.unpricedYarnIds && figures.unpricedYarnIds.length > 0 ? (
         <p className="mt-2 text-xs text-ink-faint">No cost: {figures.unpricedYarnIds.map(yarnName).join(', ')} {figures.unpricedYarnIds.length === 1 ? 'has' : 'have'} no price per kg in the library.</p>
       ) : null}
-      <p className="mt-2 text-xs text-ink-faint">Kept: the yarn in the stitches inside the cut lines, <span className="figures">{num(figures.wasteAllowance * 100, 1)} %</span> allowance excluded.</p>
+      <p className="mt-2 text-xs text-ink-faint">
+        Under each graded size: its stitch factor against {figures.baseSize} ({[...new Set(figures.sizes.find((s) => s.basis === 'graded')?.panels.map((p) => (p.kind.startsWith('sleeve') ? 'sleeves' : p.kind.startsWith('leg') ? 'legs' : 'body')) ?? [])].join(' · ') || 'per panel'}).
+        Kept: the yarn in the stitches inside the cut lines, <span className="figures">{num(figures.wasteAllowance * 100, 1)} %</span> allowance excluded.
+      </p>
     </div>
   );
 }
