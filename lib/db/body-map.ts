@@ -1,8 +1,8 @@
 import type { Knex } from 'knex';
 import { db } from './knex';
 import type { SessionUser } from './users';
-import { findStyle, type Style } from './styles';
-import type { Panel, PanelKind, StitchPolygon, Zone, ZoneFunction } from '@/lib/knit/panel';
+import { findStyle } from './styles';
+import type { Panel, PanelKind, StitchPolygon, Zone } from '@/lib/knit/panel';
 import type { BodyMapSave } from '@/lib/validations/body-map';
 import { conflict, HttpError, notFound } from '@/lib/api/errors';
 import { randomUUID } from 'node:crypto';
@@ -22,25 +22,27 @@ interface PanelRow {
   id: string; kind: PanelKind; name: string; width_needles: number; height_courses: number;
   knitted_area: StitchPolygon; cut_outline: StitchPolygon; base_texture_id: string | null; position: number;
 }
-interface ZoneRow { id: string; panel_id: string; name: string; texture_id: string; fn: ZoneFunction; stack_order: number; polygon: StitchPolygon }
 
-/** The saved panels and zones of a style, in panel order; empty when none are saved. */
+/**
+ * The saved panels and zones of a style, in panel order (zones in stacking order); empty when none
+ * are saved. One query: each panel row carries its zones as a JSON array.
+ */
 export async function loadPanels(styleId: string, q: Knex | Knex.Transaction = db()): Promise<Panel[]> {
-  const panelRows = (await q('panels').where({ style_id: styleId }).orderBy('position')) as PanelRow[];
-  if (panelRows.length === 0) return [];
-  const zoneRows = (await q('zones')
-    .whereIn('panel_id', panelRows.map((p) => p.id))
-    .orderBy('stack_order')) as ZoneRow[];
-  const byPanel = new Map<string, Zone[]>();
-  for (const z of zoneRows) {
-    const list = byPanel.get(z.panel_id) ?? [];
-    list.push({ id: z.id, name: z.name, textureId: z.texture_id, fn: z.fn, order: z.stack_order, polygon: z.polygon });
-    byPanel.set(z.panel_id, list);
-  }
-  return panelRows.map((p) => ({
+  const rows = (await q('panels as p')
+    .where('p.style_id', styleId)
+    .orderBy('p.position')
+    .select(
+      'p.id', 'p.kind', 'p.name', 'p.width_needles', 'p.height_courses', 'p.knitted_area', 'p.cut_outline', 'p.base_texture_id', 'p.position',
+      q.raw(
+        `coalesce((select json_agg(json_build_object('id', z.id, 'name', z.name, 'textureId', z.texture_id, 'fn', z.fn,
+           'order', z.stack_order, 'polygon', z.polygon) order by z.stack_order, z.id)
+           from zones z where z.panel_id = p.id), '[]'::json) as zones`,
+      ),
+    )) as (PanelRow & { zones: Zone[] })[];
+  return rows.map((p) => ({
     id: p.id, kind: p.kind, name: p.name, widthNeedles: p.width_needles, heightCourses: p.height_courses,
     knittedArea: p.knitted_area, cutOutline: p.cut_outline, baseTextureId: p.base_texture_id ?? '',
-    zones: byPanel.get(p.id) ?? [],
+    zones: p.zones,
   }));
 }
 
@@ -54,50 +56,54 @@ export async function unknownTextureIds(studioId: string, ids: string[], q: Knex
   return unique.filter((id) => !found.has(id));
 }
 
+function uniqueViolation(err: unknown): boolean {
+  return !!err && typeof err === 'object' && (err as { code?: string }).code === '23505';
+}
+
 /**
  * Saves the whole map when `input.version` is the style's current version, raising it by one;
  * otherwise 409 and nothing changes. Writes an audit entry.
+ *
+ * One statement raises the version, checks it and locks the style row (a concurrent save waits,
+ * then finds the version moved on: 409). The style is read only when that statement matched
+ * nothing, to tell 404 from 409. Panel and zone ids that belong to another style collide with
+ * their primary keys on insert (the schema refuses duplicates within one map): a 400.
  */
-export async function saveBodyMap(user: SessionUser, styleId: string, input: BodyMapSave, q: Knex = db()): Promise<{ version: number; style: Style }> {
+export async function saveBodyMap(user: SessionUser, styleId: string, input: BodyMapSave, q: Knex = db()): Promise<{ version: number }> {
+  const textureIds = input.panels.flatMap((p) => [p.baseTextureId, ...p.zones.map((z) => z.textureId)]);
   return q.transaction(async (trx) => {
-    const style = await findStyle(user, styleId, trx);
-    if (!style) throw notFound('Style not found.');
-    const textureIds = input.panels.flatMap((p) => [p.baseTextureId, ...p.zones.map((z) => z.textureId)]);
-    const unknown = await unknownTextureIds(user.studioId, textureIds, trx);
-    if (unknown.length) {
-      throw new HttpError(400, 'Some textures are not in the studio library.', { fieldErrors: { textureId: [`Unknown texture: ${unknown.join(', ')}`] } });
-    }
     const bumped = await trx('styles')
       .where({ id: styleId, studio_id: user.studioId, version: input.version })
       .whereNull('archived_at')
       .update({ version: trx.raw('version + 1'), updated_at: trx.fn.now() })
       .returning('version');
     if (bumped.length === 0) {
+      const style = await findStyle(user, styleId, trx);
+      if (!style) throw notFound('Style not found.');
       throw conflict('This body map was saved elsewhere after you opened it.', { currentVersion: style.version });
     }
     const version = (bumped[0] as { version: number }).version;
-    // Ids must not belong to another style's panels or zones.
-    const panelIds = input.panels.map((p) => p.id);
-    const zoneIds = input.panels.flatMap((p) => p.zones.map((z) => z.id));
-    const foreignPanels = await trx('panels').whereIn('id', panelIds).whereNot('style_id', styleId).count<{ count: string }[]>('* as count').first();
-    const foreignZones = zoneIds.length
-      ? await trx('zones as z').join('panels as p', 'p.id', 'z.panel_id').whereIn('z.id', zoneIds).whereNot('p.style_id', styleId).count<{ count: string }[]>('* as count').first()
-      : { count: '0' };
-    if (Number(foreignPanels?.count) > 0 || Number(foreignZones?.count) > 0) {
-      throw new HttpError(400, 'Panel or zone ids belong to another style.');
+    const unknown = await unknownTextureIds(user.studioId, textureIds, trx);
+    if (unknown.length) {
+      throw new HttpError(400, 'Some textures are not in the studio library.', { fieldErrors: { textureId: [`Unknown texture: ${unknown.join(', ')}`] } });
     }
     await trx('panels').where({ style_id: styleId }).del();
-    await trx('panels').insert(
-      input.panels.map((p, i) => ({
-        id: p.id, style_id: styleId, position: i, kind: p.kind, name: p.name, width_needles: p.widthNeedles,
-        height_courses: p.heightCourses, knitted_area: JSON.stringify(p.knittedArea), cut_outline: JSON.stringify(p.cutOutline),
-        base_texture_id: p.baseTextureId,
-      })),
-    );
     const zoneRows = input.panels.flatMap((p) =>
       p.zones.map((z) => ({ id: z.id, panel_id: p.id, name: z.name, texture_id: z.textureId, fn: z.fn, stack_order: z.order, polygon: JSON.stringify(z.polygon) })),
     );
-    for (let i = 0; i < zoneRows.length; i += 500) await trx('zones').insert(zoneRows.slice(i, i + 500));
+    try {
+      await trx('panels').insert(
+        input.panels.map((p, i) => ({
+          id: p.id, style_id: styleId, position: i, kind: p.kind, name: p.name, width_needles: p.widthNeedles,
+          height_courses: p.heightCourses, knitted_area: JSON.stringify(p.knittedArea), cut_outline: JSON.stringify(p.cutOutline),
+          base_texture_id: p.baseTextureId,
+        })),
+      );
+      for (let i = 0; i < zoneRows.length; i += 500) await trx('zones').insert(zoneRows.slice(i, i + 500));
+    } catch (err) {
+      if (uniqueViolation(err)) throw new HttpError(400, 'Panel or zone ids belong to another style.');
+      throw err;
+    }
     // Every texture the map uses belongs to the style's textures (mill and client see those).
     const used = [...new Set(textureIds)];
     if (used.length) {
@@ -110,8 +116,7 @@ export async function saveBodyMap(user: SessionUser, styleId: string, input: Bod
       studio_id: user.studioId, style_id: styleId, user_id: user.id, action: 'body-map.save',
       details: JSON.stringify({ panels: input.panels.length, zones: zoneRows.length, version }),
     });
-    const updated = await findStyle(user, styleId, trx);
-    return { version, style: updated! };
+    return { version };
   });
 }
 

@@ -409,6 +409,25 @@ describe('numbers and geometry', () => {
     expect((await designer.get(`/api/styles/${style.id}/body-map`)).json.version).toBe(map.version);
   });
 
+  it('panel and zone ids of another style are refused, and neither map changes', async () => {
+    const a = await freshMap();
+    const b = await freshMap();
+    const texture = a.map.panels[0].baseTextureId as string;
+    const zone = { id: randomUUID(), name: 'Owned by A', textureId: texture, fn: 'compression', order: 1, polygon: rect(10, 100, 60, 300) };
+    const savedA = await a.designer.put(`/api/styles/${a.style.id}/body-map`, { version: a.map.version, panels: [{ ...a.map.panels[0], zones: [zone] }, ...a.map.panels.slice(1)] });
+    expect(savedA.status).toBe(200);
+    const mapA = (await a.designer.get(`/api/styles/${a.style.id}/body-map`)).json;
+    // B's save carries A's panel ids, then A's zone id.
+    const stealPanels = await b.designer.put(`/api/styles/${b.style.id}/body-map`, { version: b.map.version, panels: mapA.panels });
+    expectRefused(stealPanels, 'panel ids of another style', [400]);
+    const stealZone = await b.designer.put(`/api/styles/${b.style.id}/body-map`, { version: b.map.version, panels: [{ ...b.map.panels[0], zones: [zone] }, ...b.map.panels.slice(1)] });
+    expectRefused(stealZone, 'a zone id of another style', [400]);
+    expect((await a.designer.get(`/api/styles/${a.style.id}/body-map`)).json).toEqual(mapA);
+    const nowB = (await b.designer.get(`/api/styles/${b.style.id}/body-map`)).json;
+    expect(nowB.version).toBe(b.map.version);
+    expect(nowB.generated).toBe(true);
+  });
+
   it('NaN and Infinity in numeric fields of styles, trims, yarns and lab dips are refused', async () => {
     const designer = await as('designer');
     const bad: unknown[] = ['NaN', 'Infinity', '-Infinity', '1e999', null, '', ' ', '0x10', [], {}];
