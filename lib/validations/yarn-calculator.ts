@@ -17,34 +17,45 @@ export const maxGarmentsPerSize = 1_000_000;
 
 const isBlank = (v: unknown) => v === undefined || v === null || (typeof v === 'string' && v.trim() === '');
 
-/** A size label as the style stores it (letters, digits, a few marks). */
-const sizeLabel = /^[\p{L}\p{N} .+/_-]{1,16}$/u;
+/** A size label: any printable text of up to 16 characters (the style's own labels are up to 12). */
+const sizeLabel = /^[^\p{Cc}]{1,16}$/u;
+
+function decodeSize(raw: string): string | null {
+  try {
+    return decodeURIComponent(raw.trim());
+  } catch {
+    return null;
+  }
+}
 
 /**
- * Garments per size as the query string carries them: `S:120,M:200,L:80`. Sizes are checked against
- * the style by the data layer.
+ * Garments per size as the query string carries them: `S:120,M:200,L:80`, each size label
+ * URI-encoded (so a label may hold a comma or a colon). Sizes are checked against the style by the
+ * data layer.
  */
 const garmentsSchema = z.preprocess(
   (v, ctx) => {
     if (isBlank(v)) return {};
     if (typeof v !== 'string') return v;
-    const out: Record<string, unknown> = {};
+    const entries: [string, number][] = [];
+    const seen = new Set<string>();
     for (const part of v.split(',')) {
       if (part.trim() === '') continue;
       const at = part.lastIndexOf(':');
-      const size = at > 0 ? part.slice(0, at).trim() : '';
+      const size = at > 0 ? decodeSize(part.slice(0, at)) : null;
       const n = at > 0 ? part.slice(at + 1).trim() : '';
-      if (!sizeLabel.test(size) || n === '') {
+      if (size === null || !sizeLabel.test(size) || n === '') {
         ctx.addIssue({ code: 'custom', message: `Write garments per size as S:120,M:200 ("${part.trim()}" is not)` });
         return z.NEVER;
       }
-      if (size in out) {
+      if (seen.has(size)) {
         ctx.addIssue({ code: 'custom', message: `Size ${size} is given twice` });
         return z.NEVER;
       }
-      out[size] = Number(n);
+      seen.add(size);
+      entries.push([size, Number(n)]);
     }
-    return out;
+    return Object.fromEntries(entries);
   },
   z.record(
     z.string(),
@@ -73,7 +84,7 @@ export type YarnCalculatorQuery = z.infer<typeof yarnCalculatorQuerySchema>;
 /** The query string of a calculator request, as the screen builds it for the CSV link. */
 export function yarnCalculatorQueryString(q: { wastePct: number; method: (typeof contentMethods)[number]; garments: Readonly<Record<string, number>> }): string {
   const qty = Object.entries(q.garments)
-    .map(([size, n]) => `${size}:${n}`)
+    .map(([size, n]) => `${encodeURIComponent(size)}:${n}`)
     .join(',');
   const p = new URLSearchParams({ waste: String(q.wastePct), method: q.method, qty });
   return p.toString();
