@@ -239,7 +239,8 @@ export async function releaseStyle(user: SessionUser, styleId: string, input: Re
     mail.failed.push(...r.failed);
     if (r.skipped) mail.skipped = r.skipped;
   }
-  if (mail.failed.length || mail.skipped) {
+  if (mail.skipped) console.warn(`Release ${releaseId}: ${mail.skipped}`);
+  if (mail.failed.length) {
     await q('audit_log').insert({
       studio_id: user.studioId, style_id: styleId, user_id: user.id, action: 'mail.failed',
       details: JSON.stringify({ releaseId, failed: mail.failed.map((f) => f.to), skipped: mail.skipped ?? null }),
