@@ -48,13 +48,14 @@ const ZoneShape = memo(function ZoneShape({
   zone: Zone; texture: Texture | undefined; yarns: readonly Yarn[]; fill: 'texture' | 'flat'; selected: boolean;
   pxPerNeedle: number; pxPerCourse: number; pxPerCm: number; yarnColours?: Readonly<Record<string, string>>; colour: string;
 }) {
-  const pattern = useTexturePattern(fill === 'texture' ? texture : undefined, yarns, { yarnColours, pxPerCm });
+  // Below about 1.5 px per stitch the loops turn to noise: show the flat colour, and build no pattern
+  // image at all (a tiny repeat at a coarse zoom would need thousands of repeats per image).
+  const tooSmall = pxPerNeedle < 1.5 || pxPerCourse < 1.2;
+  const pattern = useTexturePattern(fill === 'texture' && !tooSmall ? texture : undefined, yarns, { yarnColours, pxPerCm });
   const usePattern = fill === 'texture' && pattern && texture;
   // The group draws in stitch units: one needle of the pattern lands on one needle of the panel.
   const scaleX = usePattern ? 1 / pattern.pxPerNeedle : 1;
   const scaleY = usePattern ? 1 / pattern.pxPerCourse : 1;
-  // Below about 1.5 px per stitch the loops turn to noise: show the flat colour with a hint of texture.
-  const tooSmall = pxPerNeedle < 1.5 || pxPerCourse < 1.2;
   const points = flatPoints(zone.polygon);
   return (
     <>
@@ -82,10 +83,11 @@ const PanelBase = memo(function PanelBase({ panel, layout, baseTexture, yarns, f
   panel: Panel; layout: PanelLayout; baseTexture: Texture | undefined; yarns: readonly Yarn[]; fill: 'texture' | 'flat';
   pxPerCm: number; yarnColours?: Readonly<Record<string, string>>; colour: string;
 }) {
-  const pattern = useTexturePattern(fill === 'texture' ? baseTexture : undefined, yarns, { yarnColours, pxPerCm });
+  const visible = layout.pxPerNeedle >= 1.5 && layout.pxPerCourse >= 1.2;
+  const pattern = useTexturePattern(fill === 'texture' && visible ? baseTexture : undefined, yarns, { yarnColours, pxPerCm });
   const w = panel.widthNeedles;
   const h = panel.heightCourses;
-  const usePattern = fill === 'texture' && pattern && baseTexture && layout.pxPerNeedle >= 1.5;
+  const usePattern = fill === 'texture' && pattern && baseTexture && visible;
   return (
     <>
       <Line
