@@ -28,7 +28,7 @@ export NEEDLEMAP_DEV_PAGES=true
 # after the exec below) ends. Files go to .data/s3, caught e-mails to .data/mail (see /dev/mail).
 S3_PORT="${NEEDLEMAP_S3_PORT:-4569}"
 SMTP_PORT_LOCAL="${NEEDLEMAP_SMTP_PORT:-2525}"
-node --import tsx fakes/start.ts --s3-port "$S3_PORT" --smtp-port "$SMTP_PORT_LOCAL" \
+node --import tsx tests/fakes/start.ts --s3-port "$S3_PORT" --smtp-port "$SMTP_PORT_LOCAL" \
   --s3-dir .data/s3 --mail-dir .data/mail --parent-pid $$ > .data/fakes.log 2>&1 &
 for _ in $(seq 1 60); do grep -q '"smtpPort"' .data/fakes.log 2>/dev/null && break; sleep 0.5; done
 grep -q '"smtpPort"' .data/fakes.log || { echo "The local S3/SMTP fakes did not start:" >&2; cat .data/fakes.log >&2; exit 1; }

@@ -30,8 +30,8 @@ step "Production build"
 npx next build
 
 step "Tests"
-npx vitest run --project lib --project server
+npx vitest run --config tests/vitest.config.ts --project lib --project server
 
 # After the others, not beside them: they stop and start a PostgreSQL of their own (about 1.5 min).
 step "Fault tests"
-npx vitest run --project faults
+npx vitest run --config tests/vitest.config.ts --project faults

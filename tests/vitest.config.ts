@@ -1,15 +1,19 @@
 import { defineConfig } from 'vitest/config';
 import { fileURLToPath } from 'node:url';
 
-const alias = { '@': fileURLToPath(new URL('.', import.meta.url)) };
+// This file lives in tests/; paths are relative to the repository root.
+const root = fileURLToPath(new URL('..', import.meta.url));
+const alias = { '@': root };
 
 // Three projects: the pure core (no database), the server side (routes, data layer) that runs
 // against a PostgreSQL database created fresh for the run by the global setup, and the fault tests.
 export default defineConfig({
+  root,
   resolve: { alias },
   test: {
     projects: [
       {
+        root,
         resolve: { alias },
         test: {
           name: 'lib',
@@ -18,6 +22,7 @@ export default defineConfig({
         },
       },
       {
+        root,
         resolve: { alias },
         test: {
           name: 'server',
@@ -32,6 +37,7 @@ export default defineConfig({
       {
         // Faults: a PostgreSQL cluster and app server of their own (stopped and started on purpose),
         // so the server project's database is never touched.
+        root,
         resolve: { alias },
         test: {
           name: 'faults',

@@ -1,6 +1,6 @@
 /**
  * The messages the local SMTP fake caught (development and tests only): one JSON file per message
- * in the folder named by NEEDLEMAP_MAIL_DIR, written by fakes/smtp.ts.
+ * in the folder named by NEEDLEMAP_MAIL_DIR, written by the SMTP fake (tests/fakes/start.ts).
  */
 import { readdir, readFile } from 'node:fs/promises';
 import path from 'node:path';

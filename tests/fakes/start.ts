@@ -4,7 +4,7 @@
  * it receives as a JSON file (and the raw .eml) in a folder, where the development mail page and the
  * tests read them. Both listen on 127.0.0.1 only.
  *
- *   node --import tsx fakes/start.ts [--s3-port 4569] [--smtp-port 2525] [--s3-dir .data/s3]
+ *   node --import tsx tests/fakes/start.ts [--s3-port 4569] [--smtp-port 2525] [--s3-dir .data/s3]
  *        [--mail-dir .data/mail] [--bucket needlemap-files] [--parent-pid PID]
  *
  * Port 0 picks a free port. Prints one JSON line with the ports and folders once both listen, then

@@ -4,7 +4,7 @@
  *
  * - a PostgreSQL cluster of its own (db/setup.sh with NEEDLEMAP_PG_PORT and NEEDLEMAP_PGDATA: a
  *   temporary folder and a free port), migrated and seeded with the demo data;
- * - the local fakes (fakes/start.ts), with a small fault switch in front of the S3 fake: an HTTP
+ * - the local fakes (tests/fakes/start.ts), with a small fault switch in front of the S3 fake: an HTTP
  *   pass-through on 127.0.0.1 that can refuse requests or cut them off half-way (see faultSwitch);
  * - the production build served against them by `next start` on a free port.
  *
@@ -64,7 +64,7 @@ async function waitFor(url: string, ms: number, server: ChildProcess, log: () =>
 function startFakes(dir: string): Promise<{ proc: ChildProcess; s3Endpoint: string; smtpPort: number; mailDir: string; bucket: string }> {
   const proc = spawn(
     'node',
-    ['--import', 'tsx', path.join(root, 'fakes/start.ts'), '--s3-port', '0', '--smtp-port', '0',
+    ['--import', 'tsx', path.join(root, 'tests/fakes/start.ts'), '--s3-port', '0', '--smtp-port', '0',
       '--s3-dir', path.join(dir, 's3'), '--mail-dir', path.join(dir, 'mail'), '--parent-pid', String(process.pid)],
     { cwd: root, stdio: ['ignore', 'pipe', 'pipe'] },
   );

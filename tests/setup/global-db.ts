@@ -54,11 +54,11 @@ async function waitFor(url: string, ms: number, server: ChildProcess, log: () =>
   throw new Error(`The app server did not answer at ${url} within ${ms} ms:\n${log()}`);
 }
 
-/** Starts the S3 and SMTP fakes (fakes/start.ts) on free ports; resolves with what they print. */
+/** Starts the S3 and SMTP fakes (tests/fakes/start.ts) on free ports; resolves with what they print. */
 async function startFakes(dir: string): Promise<{ proc: ChildProcess; s3Endpoint: string; smtpPort: number; mailDir: string; bucket: string }> {
   const proc = spawn(
     'node',
-    ['--import', 'tsx', path.join(root, 'fakes/start.ts'), '--s3-port', '0', '--smtp-port', '0',
+    ['--import', 'tsx', path.join(root, 'tests/fakes/start.ts'), '--s3-port', '0', '--smtp-port', '0',
       '--s3-dir', path.join(dir, 's3'), '--mail-dir', path.join(dir, 'mail'), '--parent-pid', String(process.pid)],
     { cwd: root, stdio: ['ignore', 'pipe', 'pipe'] },
   );
