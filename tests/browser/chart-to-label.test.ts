@@ -22,7 +22,7 @@ describe('from a painted chart to the content label', () => {
     const name = `Browser power rib ${Date.now().toString(36)}`;
     const feeder = { ground: pa.id, plated: { yarn: el.id, draft: 2 } };
     const created = await designer.post('/api/library/textures', {
-      name, family: 'mock-rib', function: 'compression', repeat: { needles: 4, courses: 2, cells: ['kkkk', 'kkkk'] },
+      name, family: 'mock-rib', function: 'support', repeat: { needles: 4, courses: 2, cells: ['kkkk', 'kkkk'] },
       feeders: [feeder, feeder], density: { walesPerCm: 22, coursesPerCm: 30 }, loopMm: { knit: 2.3, tuck: 1.7 },
     });
     expect(created.status).toBe(201);
