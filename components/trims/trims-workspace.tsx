@@ -306,7 +306,7 @@ export function TrimsWorkspace({ styleId, panels, generated, textures, yarns, co
             </span>
           </div>
           {generated ? <div className="border-b border-rule bg-spruce-50 px-4 py-1.5 text-xs text-spruce-700">No body map is saved yet: the panels are generated from the garment type.</div> : null}
-          <div className="relative h-[600px] bg-[#f2f1ec]">
+          <div className="relative h-[540px] bg-[#f2f1ec]">
             <TrimCanvas
               panels={panels}
               textures={lookup}
