@@ -1,26 +1,18 @@
 import type { Metadata } from 'next';
-import { notFound, redirect } from 'next/navigation';
-import { currentUser } from '@/lib/auth/authorize';
 import { can, isOutsideRole } from '@/lib/auth/roles';
-import { findStyle } from '@/lib/db/styles';
 import { listOrganisations } from '@/lib/db/organisations';
 import { listReleases, requireRelease } from '@/lib/db/releases';
 import { buildPackData } from '@/lib/db/pack-source';
-import { idParamSchema } from '@/lib/validations/style';
 import { Card } from '@/components/ui/card';
 import { ExportsPanel } from '@/components/mill/exports-panel';
 import { ReleaseForm } from '@/components/mill/release-form';
 import { ReleasesList } from '@/components/mill/releases-list';
+import { workspaceStyle } from '@/components/workspace/workspace-style';
 
 export const metadata: Metadata = { title: 'Mill pack' };
 
 export default async function MillPackPage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await currentUser();
-  if (!user) redirect('/sign-in');
-  const parsed = idParamSchema.safeParse(await params);
-  if (!parsed.success) notFound();
-  const style = await findStyle(user, parsed.data.id);
-  if (!style) notFound();
+  const { user, style } = await workspaceStyle((await params).id);
   const releases = await listReleases(user, style.id);
   const outside = isOutsideRole(user.role);
   const latest = releases[0];

@@ -1,23 +1,15 @@
 import type { Metadata } from 'next';
-import { notFound, redirect } from 'next/navigation';
-import { currentUser } from '@/lib/auth/authorize';
 import { can } from '@/lib/auth/roles';
-import { findStyle } from '@/lib/db/styles';
 import { listReleases } from '@/lib/db/releases';
 import { listTestKnits, testKnitThreshold } from '@/lib/db/test-knits';
-import { idParamSchema } from '@/lib/validations/style';
 import { Card } from '@/components/ui/card';
 import { RequestTestKnits, TestKnitList } from '@/components/mill/test-knits';
+import { workspaceStyle } from '@/components/workspace/workspace-style';
 
 export const metadata: Metadata = { title: 'Test knits' };
 
 export default async function TestKnitsPage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await currentUser();
-  if (!user) redirect('/sign-in');
-  const parsed = idParamSchema.safeParse(await params);
-  if (!parsed.success) notFound();
-  const style = await findStyle(user, parsed.data.id);
-  if (!style) notFound();
+  const { user, style } = await workspaceStyle((await params).id);
   if (user.role === 'client') {
     return <Card title="Test knits"><p className="text-sm text-ink-soft">The studio and the mill handle the test knits.</p></Card>;
   }

@@ -1,23 +1,15 @@
 import type { Metadata } from 'next';
-import { notFound, redirect } from 'next/navigation';
-import { currentUser } from '@/lib/auth/authorize';
 import { can } from '@/lib/auth/roles';
-import { findStyle } from '@/lib/db/styles';
 import { loadPanels } from '@/lib/db/body-map';
 import { listStyleTextures, listTextures, yarnsOfTextures } from '@/lib/db/textures';
 import { yarnForViewer } from '@/lib/db/yarns';
-import { idParamSchema } from '@/lib/validations/style';
 import { StyleTextures, type TextureUse } from '@/components/style-textures/style-textures';
+import { workspaceStyle } from '@/components/workspace/workspace-style';
 
 export const metadata: Metadata = { title: 'Textures' };
 
 export default async function StyleTexturesPage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await currentUser();
-  if (!user) redirect('/sign-in');
-  const parsed = idParamSchema.safeParse(await params);
-  if (!parsed.success) notFound();
-  const style = await findStyle(user, parsed.data.id);
-  if (!style) notFound();
+  const { user, style } = await workspaceStyle((await params).id);
   const editable = can(user.role, 'style:edit');
   const [styleTextures, panels, library] = await Promise.all([
     listStyleTextures(user, style.id),

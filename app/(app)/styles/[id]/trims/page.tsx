@@ -1,24 +1,17 @@
 import type { Metadata } from 'next';
-import { notFound, redirect } from 'next/navigation';
-import { currentUser } from '@/lib/auth/authorize';
+import { notFound } from 'next/navigation';
 import { can } from '@/lib/auth/roles';
-import { findStyle } from '@/lib/db/styles';
 import { loadBodyMap } from '@/lib/db/body-map';
 import { findTexture, listStyleTextures, listTextures, yarnsOfTextures } from '@/lib/db/textures';
 import { yarnForViewer } from '@/lib/db/yarns';
 import { listTrims } from '@/lib/db/trims';
-import { idParamSchema } from '@/lib/validations/style';
 import { TrimsWorkspace } from '@/components/trims/trims-workspace';
+import { workspaceStyle } from '@/components/workspace/workspace-style';
 
 export const metadata: Metadata = { title: 'Trims' };
 
 export default async function TrimsPage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await currentUser();
-  if (!user) redirect('/sign-in');
-  const parsed = idParamSchema.safeParse(await params);
-  if (!parsed.success) notFound();
-  const style = await findStyle(user, parsed.data.id);
-  if (!style) notFound();
+  const { user, style } = await workspaceStyle((await params).id);
   const [map, styleTextures, trims] = await Promise.all([loadBodyMap(user, style.id), listStyleTextures(user, style.id), listTrims(user, style.id)]);
   if (!map) notFound();
   const textures = [...styleTextures.textures];
