@@ -127,7 +127,15 @@ async function measure(name: string, kind: Figures['kind'], pathLabel: string, r
     name, kind, path: pathLabel,
     rps: result.requests.total / result.duration, // completed requests per second over the run
     p50: percentile(latencies, 50), p95: percentile(latencies, 95), p99: percentile(latencies, 99),
-    errors: result.errors + result.timeouts + result.non2xx, requests: result.requests.total, peakRssMb: peak,
+    // autocannon counts timeouts among its errors; non-2xx answers apart.
+    errors: result.errors + result.non2xx, requests: result.requests.total, peakRssMb: peak,
+    note: result.errors + result.non2xx > 0
+      ? `errors: ${[
+        ...Object.entries(result.statusCodeStats ?? {}).filter(([code]) => !code.startsWith('2')).map(([code, v]) => `${v.count} × ${code}`),
+        ...(result.timeouts ? [`${result.timeouts} timeouts`] : []),
+        ...(result.errors - result.timeouts > 0 ? [`${result.errors - result.timeouts} socket errors`] : []),
+      ].join(', ')}`
+      : undefined,
   };
 }
 
