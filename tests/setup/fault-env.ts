@@ -10,15 +10,16 @@
  *
  * The tests stop and start the database through `tests/faults/control.ts`.
  */
-import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
+import { execFileSync, spawn } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { createServer as createHttpServer, request as httpRequest, type IncomingMessage, type ServerResponse } from 'node:http';
-import { createServer, type AddressInfo } from 'node:net';
+import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
 
 const root = path.resolve(import.meta.dirname, '../..');
+import { freePort, startFakes, waitFor } from './services';
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -36,53 +37,6 @@ declare module 'vitest' {
   }
 }
 
-async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.listen(0, '127.0.0.1', () => {
-      const port = (srv.address() as AddressInfo).port;
-      srv.close(() => resolve(port));
-    });
-    srv.on('error', reject);
-  });
-}
-
-async function waitFor(url: string, ms: number, server: ChildProcess, log: () => string) {
-  const end = Date.now() + ms;
-  while (Date.now() < end) {
-    if (server.exitCode !== null) throw new Error(`The app server exited early:\n${log()}`);
-    try {
-      if ((await fetch(url)).ok) return;
-    } catch {
-      /* not up yet */
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`The app server did not answer at ${url} within ${ms} ms:\n${log()}`);
-}
-
-function startFakes(dir: string): Promise<{ proc: ChildProcess; s3Endpoint: string; smtpPort: number; mailDir: string; bucket: string }> {
-  const proc = spawn(
-    'node',
-    ['--import', 'tsx', path.join(root, 'tests/fakes/start.ts'), '--s3-port', '0', '--smtp-port', '0',
-      '--s3-dir', path.join(dir, 's3'), '--mail-dir', path.join(dir, 'mail'), '--parent-pid', String(process.pid)],
-    { cwd: root, stdio: ['ignore', 'pipe', 'pipe'] },
-  );
-  let out = '';
-  let err = '';
-  proc.stderr?.on('data', (d) => (err += d));
-  return new Promise((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`The local fakes did not start within 30 s:\n${err}`)), 30_000);
-    proc.on('exit', (code) => reject(new Error(`The local fakes exited (${code}):\n${err}`)));
-    proc.stdout?.on('data', (d) => {
-      out += d;
-      const line = out.split('\n')[0];
-      if (!out.includes('\n') || !line) return;
-      clearTimeout(timer);
-      resolve({ proc, ...(JSON.parse(line) as { s3Endpoint: string; smtpPort: number; mailDir: string; bucket: string }) });
-    });
-  });
-}
 
 export type SwitchMode = 'pass' | 'refuse' | 'cut' | 'hold';
 
