@@ -222,20 +222,46 @@ describe('hostile bodies at every write route', () => {
 
   it('a body over the limit sent without Content-Length (chunked) is cut off at the limit', async () => {
     const designer = await as('designer');
-    const chunk = new TextEncoder().encode('x'.repeat(64 * 1024));
-    let sent = 0;
-    const stream = new ReadableStream<Uint8Array>({
-      pull(ctrl) {
-        if (sent >= 6 * 1024 * 1024) { ctrl.close(); return; }
-        sent += chunk.byteLength;
-        ctrl.enqueue(sent === chunk.byteLength ? new TextEncoder().encode(`{"name":"${'x'.repeat(64 * 1024 - 9)}`) : chunk);
-      },
+    // Its own connection (agent: false): the server cuts this one off mid-body, and a socket it
+    // reset must never go back to the pool the other requests of this file share.
+    const answer = await new Promise<Answer>((resolve, reject) => {
+      const u = new URL(`${baseUrl()}/api/styles`);
+      let done = false;
+      const req = httpRequest(
+        { host: u.hostname, port: u.port, path: u.pathname, method: 'POST', agent: false, headers: { cookie: designer.cookie, 'content-type': 'application/json', 'transfer-encoding': 'chunked' } },
+        (res) => {
+          let text = '';
+          const finish = () => {
+            if (done) return;
+            done = true;
+            req.destroy();
+            let json: any = null;
+            try { json = JSON.parse(text); } catch { json = null; }
+            resolve({ status: res.statusCode ?? 0, json, text, headers: new Headers() });
+          };
+          res.setEncoding('utf8');
+          res.on('data', (d: string) => (text += d));
+          res.on('end', finish);
+          // The server drops the connection once it has answered: what arrived is the answer.
+          res.on('error', finish);
+          res.on('aborted', finish);
+        },
+      );
+      req.on('error', (e) => { if (!done) reject(e); });
+      const chunk = 'x'.repeat(64 * 1024);
+      let sent = 0;
+      const pump = () => {
+        while (!done && sent < 6 * 1024 * 1024) {
+          const piece = sent === 0 ? `{"name":"${'x'.repeat(64 * 1024 - 9)}` : chunk;
+          sent += piece.length;
+          if (!req.write(piece)) { req.once('drain', pump); return; }
+        }
+        if (!done) req.end();
+      };
+      pump();
     });
-    const res = await fetch(`${baseUrl()}/api/styles`, {
-      method: 'POST', body: stream, headers: { cookie: designer.cookie, 'content-type': 'application/json' }, duplex: 'half',
-    } as RequestInit & { duplex: 'half' });
-    expect(res.status).toBe(413);
-    expect(((await res.json()) as { error: string }).error).toMatch(/too large/);
+    expect(answer.status).toBe(413);
+    expect((answer.json as { error: string }).error).toMatch(/too large/);
   });
 
   it('upload routes refuse the wrong content type, an oversized declaration and a broken form', async () => {
