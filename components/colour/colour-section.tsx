@@ -29,6 +29,8 @@ export interface ColourAbilities {
   library: boolean;
   /** A client reviewer: approved colours only. */
   client: boolean;
+  /** Read the working copy's body map for the preview (not the mill: it sees released revisions). */
+  preview: boolean;
 }
 
 const routeLabel = (r: ColourwayRoute) => (r === 'mixed' ? 'Mixed routes' : r === 'none' ? 'No targets yet' : targetRouteLabels[r]);
@@ -39,7 +41,7 @@ export function ColourSection({ styleId, can }: { styleId: string; can: ColourAb
   const colourways = useColourways(styleId);
   const labDips = useLabDips(styleId);
   const standards = useColourStandards(can.library);
-  const preview = usePreviewData(styleId);
+  const preview = usePreviewData(styleId, can.preview);
   const [picked, setPicked] = useState<string | null>(null);
 
   const list = useMemo(() => colourways.data?.colourways ?? [], [colourways.data]);
@@ -49,7 +51,7 @@ export function ColourSection({ styleId, can }: { styleId: string; can: ColourAb
   if (colourways.isLoading) return <div className="h-40 animate-pulse rounded-[var(--radius-card)] bg-rule/50" />;
   if (colourways.error) return <Notice tone="error">Could not load the colourways: {colourways.error.message}</Notice>;
 
-  const previewCard = (
+  const previewCard = !can.preview ? null : (
     <Card title="On the body">
       {preview.map.data && preview.textures.data ? (
         <div className="space-y-3">
@@ -136,7 +138,7 @@ export function ColourSection({ styleId, can }: { styleId: string; can: ColourAb
         </Card>
       ) : (
         <>
-          <div className="grid grid-cols-1 gap-5 xl:grid-cols-[minmax(0,1fr)_440px]">
+          <div className={`grid grid-cols-1 gap-5 ${previewCard ? 'xl:grid-cols-[minmax(0,1fr)_440px]' : ''}`}>
             <div className="min-w-0 space-y-5">
               <Card
                 title={<span>Targets <span className="ml-1 font-normal text-ink-faint">· {routeLabel(current.plan?.route ?? 'none')}</span></span>}
@@ -162,7 +164,7 @@ export function ColourSection({ styleId, can }: { styleId: string; can: ColourAb
                 </Card>
               ) : null}
             </div>
-            <div className="min-w-0">{previewCard}</div>
+            {previewCard ? <div className="min-w-0">{previewCard}</div> : null}
           </div>
           <div className={`grid grid-cols-1 gap-5 ${can.submit ? 'xl:grid-cols-[minmax(0,1fr)_440px]' : ''}`}>
             <Card

@@ -34,8 +34,8 @@ export function useColourStandards(enabled = true) {
 }
 
 /** The style's panels and zones, and its textures, for the colourway preview. */
-export function usePreviewData(styleId: string) {
-  const map = useQuery({ queryKey: ['styles', styleId, 'body-map'], queryFn: () => api<BodyMap>(`/api/styles/${styleId}/body-map`) });
-  const textures = useQuery({ queryKey: ['styles', styleId, 'textures'], queryFn: () => api<StyleTextures>(`/api/styles/${styleId}/textures`) });
+export function usePreviewData(styleId: string, enabled = true) {
+  const map = useQuery({ queryKey: ['styles', styleId, 'body-map'], enabled, queryFn: () => api<BodyMap>(`/api/styles/${styleId}/body-map`) });
+  const textures = useQuery({ queryKey: ['styles', styleId, 'textures'], enabled, queryFn: () => api<StyleTextures>(`/api/styles/${styleId}/textures`) });
   return { map, textures };
 }

@@ -15,6 +15,8 @@ export const roleLabels: Record<Role, string> = {
 
 export const permissions = [
   'style:read',
+  /** The live working copy of a style (brief, body map, textures, yarns, trims): the mill gets released revisions instead. */
+  'style:working-copy',
   'style:create',
   'style:edit',
   'style:archive',
@@ -38,12 +40,12 @@ export type Permission = (typeof permissions)[number];
 const grants: Record<Role, readonly Permission[]> = {
   admin: permissions,
   designer: [
-    'style:read', 'style:create', 'style:edit', 'style:archive', 'style:share', 'style:release',
+    'style:read', 'style:working-copy', 'style:create', 'style:edit', 'style:archive', 'style:share', 'style:release',
     'library:read', 'library:edit', 'mill:download',
     'brief:read', 'quote:read', 'quote:edit',
   ],
-  'colour-lead': ['style:read', 'library:read', 'colour:edit', 'labdip:decide', 'mill:download', 'brief:read', 'quote:read'],
-  client: ['style:read', 'proposal:comment', 'proposal:decide', 'brief:read'],
+  'colour-lead': ['style:read', 'style:working-copy', 'library:read', 'colour:edit', 'labdip:decide', 'mill:download', 'brief:read', 'quote:read'],
+  client: ['style:read', 'style:working-copy', 'proposal:comment', 'proposal:decide', 'brief:read'],
   mill: ['style:read', 'mill:download', 'mill:upload'],
 };
 

@@ -26,6 +26,8 @@ const staffOnly = (ok: number) => ({ anon: 401, admin: ok, designer: ok, 'colour
 const editors = (ok: number) => ({ anon: 401, admin: ok, designer: ok, 'colour-lead': 403, client: 403, mill: 403 });
 const adminOnly = (ok: number) => ({ anon: 401, admin: ok, designer: 403, 'colour-lead': 403, client: 403, mill: 403 });
 const everyone = (ok: number) => ({ anon: 401, admin: ok, designer: ok, 'colour-lead': ok, client: ok, mill: ok });
+/** The live working copy (body map, textures, yarns, trims): not the mill, which works from released revisions. */
+const workingCopy = (ok: number) => ({ ...everyone(ok), mill: 403 });
 
 async function freshStyle() {
   const designer = await as('designer');
@@ -315,7 +317,7 @@ export const matrix: Record<string, Entry> = {
       return c.delete(`/api/styles/${s.id}/shares/${ctx.kestenholmId}`);
     },
   },
-  'GET /api/styles/[id]/body-map': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/body-map`) },
+  'GET /api/styles/[id]/body-map': { expect: workingCopy(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/body-map`) },
   'PUT /api/styles/[id]/body-map': {
     expect: editors(200),
     run: async (c) => {
@@ -373,7 +375,7 @@ export const matrix: Record<string, Entry> = {
   },
   'DELETE /api/library/textures/[id]': { expect: editors(200), run: async (c) => c.delete(`/api/library/textures/${(await freshTexture()).id}`) },
   // Everyone who sees the style reads its textures and trims: mill and client included for shared styles.
-  'GET /api/styles/[id]/textures': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/textures`) },
+  'GET /api/styles/[id]/textures': { expect: workingCopy(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/textures`) },
   'PUT /api/styles/[id]/textures': {
     expect: editors(200),
     run: async (c) => {
@@ -381,7 +383,7 @@ export const matrix: Record<string, Entry> = {
       return c.put(`/api/styles/${s.id}/textures`, { version: s.version, textureIds: [(await freshTexture()).id] });
     },
   },
-  'GET /api/styles/[id]/trims': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/trims`) },
+  'GET /api/styles/[id]/trims': { expect: workingCopy(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/trims`) },
   'POST /api/styles/[id]/trims': {
     expect: editors(201),
     run: async (c) =>
@@ -404,8 +406,8 @@ export const matrix: Record<string, Entry> = {
     },
   },
   // The yarn calculator and its order CSV: everyone who sees the style (prices only for the studio, see yarn-calculator.test.ts).
-  'GET /api/styles/[id]/yarn-calculator': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/yarn-calculator?qty=M:10`) },
-  'GET /api/styles/[id]/yarn-order.csv': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/yarn-order.csv?qty=M:10`) },
+  'GET /api/styles/[id]/yarn-calculator': { expect: workingCopy(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/yarn-calculator?qty=M:10`) },
+  'GET /api/styles/[id]/yarn-order.csv': { expect: workingCopy(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/yarn-order.csv?qty=M:10`) },
   'GET /api/library/colour-standards': { expect: staffOnly(200), run: (c) => c.get('/api/library/colour-standards') },
   'POST /api/library/colour-standards': {
     expect: colourEditors(201),

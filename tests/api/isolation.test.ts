@@ -9,9 +9,10 @@
  */
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
+import { randomUUID } from 'node:crypto';
 import knexFactory, { type Knex } from 'knex';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { as, baseUrl, Client, styleByCode, type Account } from './helpers';
+import { as, baseUrl, Client, newStyleBody, styleByCode, type Account } from './helpers';
 
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 interface RouteInfo { key: string; method: Method; template: string; multipart: boolean }
@@ -259,6 +260,67 @@ describe('mill and client accounts', () => {
         }
       }
     }
+  });
+
+  it('the mill reaches released revisions only: a zone drawn after the release never reaches it', { timeout: 120_000 }, async () => {
+    const designer = await as('designer');
+    const mill = await as('mill');
+    const studio = (await knex('styles').where({ id: ids.style }).first('studio_id')).studio_id as string;
+    const quellmoor = (await knex('organisations').where({ studio_id: studio, name: 'Quellmoor Knitworks' }).first('id')).id as string;
+    const textureId = (await knex('textures').where({ studio_id: studio }).whereNull('archived_at').orderBy('name').first('id')).id as string;
+    const style = (await designer.post('/api/styles', newStyleBody())).json.style as { id: string };
+    expect((await designer.post(`/api/styles/${style.id}/shares`, { organisationId: quellmoor })).status).toBe(201);
+    const stamp = Date.now().toString(36);
+    const releasedZone = `Released zone ${stamp}`;
+    const laterZone = `Working copy zone ${stamp}`;
+    const addZone = async (name: string) => {
+      const map = (await designer.get(`/api/styles/${style.id}/body-map`)).json;
+      const panels = structuredClone(map.panels);
+      panels[0].zones.push({
+        id: randomUUID(), name, textureId, fn: 'compression', order: panels[0].zones.length + 1,
+        polygon: [{ x: 10, y: 100 }, { x: 120, y: 100 }, { x: 120, y: 600 }, { x: 10, y: 600 }],
+      });
+      const res = await designer.put(`/api/styles/${style.id}/body-map`, { version: map.version, panels });
+      expect(res.status, res.text).toBe(200);
+    };
+    await addZone(releasedZone);
+    const version = (await designer.get(`/api/styles/${style.id}`)).json.style.version as number;
+    const rel = await designer.post(`/api/styles/${style.id}/releases`, { version, millIds: [quellmoor] });
+    expect(rel.status, rel.text).toBe(201);
+    const releaseId = rel.json.release.id as string;
+    await addZone(laterZone);
+
+    // The released revision holds the zone it was released with.
+    const release = await call(mill, 'GET', `/api/releases/${releaseId}`);
+    expect(release.status).toBe(200);
+    expect(release.text).toContain(releasedZone);
+    // No answer the mill can reach holds the zone drawn afterwards; the working copy's routes are refused.
+    let reached = 0;
+    for (const r of getRoutes) {
+      for (const p of pathsOf(r.template, style.id) ?? []) {
+        const res = await call(mill, 'GET', p.replace(ids.release!, releaseId));
+        if (res.status !== 200) continue;
+        reached++;
+        expect(res.text.includes(laterZone), `${p} shows the working copy`).toBe(false);
+      }
+    }
+    expect(reached).toBeGreaterThan(5);
+    for (const p of ['body-map', 'textures', 'trims', 'yarn-calculator', 'yarn-order.csv', 'brief', 'history']) {
+      expect((await call(mill, 'GET', `/api/styles/${style.id}/${p}`)).status, p).toBe(403);
+    }
+    // Pages: the working-copy sections send the mill to the mill pack; the pages it can open show the release.
+    for (const section of ['', '/body-map', '/textures', '/yarns', '/trims']) {
+      const res = await fetch(`${baseUrl()}/styles/${style.id}${section}`, { headers: { cookie: mill.cookie }, redirect: 'manual' });
+      expect([303, 307, 308], section).toContain(res.status);
+      expect(res.headers.get('location') ?? '', section).toMatch(new RegExp(`/styles/${style.id}/mill-pack$`));
+    }
+    for (const page of [`/styles/${style.id}/mill-pack`, `/styles/${style.id}/colour`, `/styles/${style.id}/fit`, `/styles/${style.id}/test-knits`, `/releases/${releaseId}`]) {
+      const res = await call(mill, 'GET', page);
+      expect(res.status, page).toBe(200);
+      expect(res.text.includes(laterZone), `${page} shows the working copy`).toBe(false);
+    }
+    // The studio's own view of the working copy does have it (so the checks above could fail).
+    expect((await call(designer, 'GET', `/api/styles/${style.id}/body-map`)).text).toContain(laterZone);
   });
 
   it('never get a price or a cost, in any answer they can reach', { timeout: 120_000 }, async () => {

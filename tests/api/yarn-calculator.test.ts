@@ -58,25 +58,30 @@ describe('yarn calculator route', () => {
     expect(eu.content.shares.polyamide).not.toBeCloseTo(five.content.shares.polyamide, 6);
   });
 
-  it('the mill and the client read a shared style without any price or cost', async () => {
+  it('the client reads a shared style without any price or cost; the mill gets the released yarn list, not the working copy', async () => {
     const ridge = await styleByCode('HF27-101');
-    const mill = await as('mill');
-    const res = await mill.get(calc(ridge.id, 'qty=M:10'));
-    expect(res.status).toBe(200);
-    const keys = keysOf(res.json);
-    for (const k of ['pricePerKg', 'costPerGarment', 'cost', 'unpricedYarnIds']) expect(keys.has(k)).toBe(false);
-    expect(res.json.figures.order.kg).toBeGreaterThan(0);
     const client = await as('client');
-    const shared = (await client.get('/api/styles')).json.styles[0];
-    const seen = await client.get(calc(shared.id));
+    const seen = await client.get(calc(ridge.id, 'qty=M:10'));
     expect(seen.status).toBe(200);
-    expect(keysOf(seen.json).has('pricePerKg')).toBe(false);
+    const keys = keysOf(seen.json);
+    for (const k of ['pricePerKg', 'costPerGarment', 'cost', 'unpricedYarnIds']) expect(keys.has(k)).toBe(false);
+    expect(seen.json.figures.order.kg).toBeGreaterThan(0);
     // Nor through the style's texture list or the CSV.
-    const textures = await mill.get(`/api/styles/${ridge.id}/textures`);
+    const textures = await client.get(`/api/styles/${ridge.id}/textures`);
     for (const y of textures.json.yarns) expect(y.pricePerKg).toBeNull();
-    const csv = await mill.get(orderCsv(ridge.id));
+    const csv = await client.get(orderCsv(ridge.id));
     expect(csv.status).toBe(200);
     expect(csv.text).not.toMatch(/price|cost/i);
+    // The mill works from what was released to it: the live calculator, textures and order are refused,
+    // and the released revision's yarn list comes without prices.
+    const mill = await as('mill');
+    for (const p of [calc(ridge.id, 'qty=M:10'), orderCsv(ridge.id), `/api/styles/${ridge.id}/textures`]) {
+      expect((await mill.get(p)).status, p).toBe(403);
+    }
+    const released = await mill.get(`/api/styles/${ridge.id}/exports/yarn-list.csv`);
+    expect(released.status).toBe(200);
+    expect(released.text.split('\n').length).toBeGreaterThan(1);
+    expect(released.text).not.toMatch(/price|cost/i);
   });
 
   it('answers bad options with field errors, never a 500', async () => {
@@ -99,9 +104,9 @@ describe('yarn calculator route', () => {
     const ridge = await styleByCode('HF27-101');
     expect((await anonymous().get(calc(ridge.id))).status).toBe(401);
     expect((await (await as('otherStudioAdmin')).get(calc(ridge.id))).status).toBe(404);
-    const updraft = await styleByCode('HF27-102');
-    expect((await (await as('mill')).get(calc(updraft.id))).status).toBe(404);
-    expect((await (await as('mill')).get(orderCsv(updraft.id))).status).toBe(404);
+    const contour = await styleByCode('HF27-103');
+    expect((await (await as('client')).get(calc(contour.id))).status).toBe(404);
+    expect((await (await as('client')).get(orderCsv(contour.id))).status).toBe(404);
   });
 
   it('a style without a saved body map or a graded spec: generated panels, base-size grams for every size', async () => {

@@ -45,12 +45,20 @@ describe('the yarn calculator in the browser', () => {
     expect(rows.find((r) => r.startsWith('Polyamide 6.6 78/68 semi-dull'))!.split(',')[col]).toBe('500');
   });
 
-  it('the mill sees the calculator of a style released to it without prices', { timeout: 60_000 }, async () => {
+  it('the mill is sent from the working copy to the released revision it was given', { timeout: 60_000 }, async () => {
     const ridge = await styleByCode('HF27-101');
     const page = await signIn(browser, accounts.mill);
-    await page.goto(`${baseUrl()}/styles/${ridge.id}/yarns`);
-    await page.getByTestId('size-grams').waitFor();
-    expect(await page.getByTestId('cost-per-garment').count()).toBe(0);
-    expect(await page.getByTestId('order-table').textContent()).not.toMatch(/Cost/);
+    for (const section of ['', '/body-map', '/textures', '/yarns', '/trims']) {
+      await page.goto(`${baseUrl()}/styles/${ridge.id}${section}`);
+      await page.waitForURL(`**/styles/${ridge.id}/mill-pack`);
+    }
+    const tabs = await page.getByRole('navigation', { name: 'Style sections' }).getByRole('link').allTextContents();
+    expect(tabs).toEqual(['Colour', 'Fit', 'Mill pack', 'Test knits']);
+    // The released revision shows the yarns as they were released, without prices.
+    await page.getByRole('link', { name: /^Revision \d+$/ }).first().click();
+    await page.waitForURL('**/releases/**');
+    await page.getByRole('heading', { name: 'Body map' }).waitFor();
+    expect(await page.locator('main').textContent()).not.toMatch(/€|\$|per kg|Cost/);
   });
+
 });

@@ -3,10 +3,10 @@ import { Card } from '@/components/ui/card';
 import { StyleForm } from '@/components/styles/style-form';
 import { SharesPanel } from '@/components/styles/shares-panel';
 import { BriefSection } from '@/components/brief/brief-section';
-import { workspaceStyle } from '@/components/workspace/workspace-style';
+import { workingCopyStyle } from '@/components/workspace/workspace-style';
 
 export default async function StyleBriefPage({ params }: { params: Promise<{ id: string }> }) {
-  const { user, style } = await workspaceStyle((await params).id);
+  const { user, style } = await workingCopyStyle((await params).id);
   const editable = can(user.role, 'style:edit');
   return (
     <>

@@ -7,12 +7,12 @@ import { listTrims } from '@/lib/db/trims';
 import { trimKindLabels } from '@/lib/validations/library';
 import { BodyMapEditor } from '@/components/body-map/body-map-editor';
 import { notFound } from 'next/navigation';
-import { workspaceStyle } from '@/components/workspace/workspace-style';
+import { workingCopyStyle } from '@/components/workspace/workspace-style';
 
 export const metadata: Metadata = { title: 'Body map' };
 
 export default async function BodyMapPage({ params }: { params: Promise<{ id: string }> }) {
-  const { user, style } = await workspaceStyle((await params).id);
+  const { user, style } = await workingCopyStyle((await params).id);
   const [map, styleTextures, styleTrims] = await Promise.all([loadBodyMap(user, style.id), listStyleTextures(user, style.id), listTrims(user, style.id)]);
   if (!map) notFound();
   const panelIdOf = new Map(map.panels.map((p) => [p.kind, p.id]));

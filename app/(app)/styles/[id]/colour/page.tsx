@@ -16,6 +16,7 @@ export default async function StyleColourPage({ params }: { params: Promise<{ id
         submit: can(user.role, 'mill:upload'),
         library: can(user.role, 'library:read'),
         client: user.role === 'client',
+        preview: can(user.role, 'style:working-copy'),
       }}
     />
   );

@@ -4,12 +4,12 @@ import { loadPanels } from '@/lib/db/body-map';
 import { listStyleTextures, listTextures, yarnsOfTextures } from '@/lib/db/textures';
 import { yarnForViewer } from '@/lib/db/yarns';
 import { StyleTextures, type TextureUse } from '@/components/style-textures/style-textures';
-import { workspaceStyle } from '@/components/workspace/workspace-style';
+import { workingCopyStyle } from '@/components/workspace/workspace-style';
 
 export const metadata: Metadata = { title: 'Textures' };
 
 export default async function StyleTexturesPage({ params }: { params: Promise<{ id: string }> }) {
-  const { user, style } = await workspaceStyle((await params).id);
+  const { user, style } = await workingCopyStyle((await params).id);
   const editable = can(user.role, 'style:edit');
   const [styleTextures, panels, library] = await Promise.all([
     listStyleTextures(user, style.id),

@@ -6,12 +6,12 @@ import { findTexture, listStyleTextures, listTextures, yarnsOfTextures } from '@
 import { yarnForViewer } from '@/lib/db/yarns';
 import { listTrims } from '@/lib/db/trims';
 import { TrimsWorkspace } from '@/components/trims/trims-workspace';
-import { workspaceStyle } from '@/components/workspace/workspace-style';
+import { workingCopyStyle } from '@/components/workspace/workspace-style';
 
 export const metadata: Metadata = { title: 'Trims' };
 
 export default async function TrimsPage({ params }: { params: Promise<{ id: string }> }) {
-  const { user, style } = await workspaceStyle((await params).id);
+  const { user, style } = await workingCopyStyle((await params).id);
   const [map, styleTextures, trims] = await Promise.all([loadBodyMap(user, style.id), listStyleTextures(user, style.id), listTrims(user, style.id)]);
   if (!map) notFound();
   const textures = [...styleTextures.textures];

@@ -1,18 +1,14 @@
 import type { Metadata } from 'next';
-import { notFound, redirect } from 'next/navigation';
-import { currentUser } from '@/lib/auth/authorize';
+import { notFound } from 'next/navigation';
 import { loadYarnCalculatorSource } from '@/lib/db/yarn-calculator';
-import { idParamSchema } from '@/lib/validations/style';
 import { YarnCalculator } from '@/components/yarn-calculator/yarn-calculator';
+import { workingCopyStyle } from '@/components/workspace/workspace-style';
 
 export const metadata: Metadata = { title: 'Yarns & content' };
 
 export default async function YarnsPage({ params }: { params: Promise<{ id: string }> }) {
-  const user = await currentUser();
-  if (!user) redirect('/sign-in');
-  const parsed = idParamSchema.safeParse(await params);
-  if (!parsed.success) notFound();
-  const source = await loadYarnCalculatorSource(user, parsed.data.id);
+  const { user, style } = await workingCopyStyle((await params).id);
+  const source = await loadYarnCalculatorSource(user, style.id);
   if (!source) notFound();
   return <YarnCalculator source={source} />;
 }

@@ -10,7 +10,7 @@ type Params = { id: string };
 
 /** The style's panels and zones, or generated panels when none are saved yet. */
 export const GET = route<Params>(async (_req, params) => {
-  const user = await authorize('style:read');
+  const user = await authorize('style:working-copy');
   const { id } = idParamSchema.parse(params);
   const map = await loadBodyMap(user, id);
   if (!map) throw notFound('Style not found.');

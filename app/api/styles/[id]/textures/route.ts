@@ -8,7 +8,7 @@ type Params = { id: string };
 
 /** The textures the style uses, with their yarns: for everyone who can see the style. */
 export const GET = route<Params>(async (_req, params) => {
-  const user = await authorize('style:read');
+  const user = await authorize('style:working-copy');
   const { id } = idParamSchema.parse(params);
   return NextResponse.json(await listStyleTextures(user, id));
 });

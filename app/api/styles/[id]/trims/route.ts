@@ -7,7 +7,7 @@ import { idParamSchema, trimInputSchema } from '@/lib/validations/library';
 type Params = { id: string };
 
 export const GET = route<Params>(async (_req, params) => {
-  const user = await authorize('style:read');
+  const user = await authorize('style:working-copy');
   const { id } = idParamSchema.parse(params);
   return NextResponse.json({ trims: await listTrims(user, id) });
 });

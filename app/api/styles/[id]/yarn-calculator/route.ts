@@ -13,7 +13,7 @@ type Params = { id: string };
  * costs are for studio accounts only.
  */
 export const GET = route<Params>(async (req, params) => {
-  const user = await authorize('style:read');
+  const user = await authorize('style:working-copy');
   const { id } = idParamSchema.parse(params);
   const query = parseQuery(req, yarnCalculatorQuerySchema);
   return NextResponse.json(await yarnCalculatorFor(user, id, query));

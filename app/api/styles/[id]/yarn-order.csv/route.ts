@@ -8,7 +8,7 @@ type Params = { id: string };
 
 /** The run's yarn order as CSV, with the calculator's options; prices only for studio accounts. */
 export const GET = route<Params>(async (req, params) => {
-  const user = await authorize('style:read');
+  const user = await authorize('style:working-copy');
   const { id } = idParamSchema.parse(params);
   const query = parseQuery(req, yarnCalculatorQuerySchema);
   const { fileName, body } = await yarnOrderCsv(user, id, query);
