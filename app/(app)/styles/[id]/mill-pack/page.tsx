@@ -3,7 +3,7 @@ import { can, isOutsideRole } from '@/lib/auth/roles';
 import { listOrganisations } from '@/lib/db/organisations';
 import { listReleases, requireRelease } from '@/lib/db/releases';
 import { buildPackData } from '@/lib/db/pack-source';
-import { Card } from '@/components/ui/card';
+import { Card, Notice } from '@/components/ui/card';
 import { ExportsPanel } from '@/components/mill/exports-panel';
 import { ReleaseForm } from '@/components/mill/release-form';
 import { ReleasesList } from '@/components/mill/releases-list';
@@ -31,6 +31,13 @@ export default async function MillPackPage({ params }: { params: Promise<{ id: s
   return (
     <div className="grid grid-cols-1 gap-5 xl:grid-cols-[1fr_380px]">
       <div className="space-y-5">
+        {user.role === 'mill' && latest ? (
+          <Notice>
+            You work from the revisions released to you. Open{' '}
+            <a className="font-medium underline" href={`/releases/${latest.id}`}>revision {latest.revision}</a> to see its body map, textures,
+            yarns and label as they were released.
+          </Notice>
+        ) : null}
         {choices && can(user.role, 'mill:download') ? <ExportsPanel choices={choices} /> : null}
         {!choices && outside ? (
           <Card title="Mill pack"><p className="text-sm text-ink-soft">Nothing of this style was released to you yet.</p></Card>
