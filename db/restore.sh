@@ -47,7 +47,8 @@ fi
 # One transaction for all of it (with --replace: emptying the schema too), so a failed restore
 # leaves the database exactly as it was.
 {
-  if [ "$REPLACE" = "1" ]; then echo 'drop schema public cascade; create schema public;'; fi
+  # The job queue keeps its tables in a schema of its own (job_queue, see lib/jobs/queue.ts).
+  if [ "$REPLACE" = "1" ]; then echo 'drop schema public cascade; create schema public; drop schema if exists job_queue cascade;'; fi
   "$PG_RESTORE" --no-owner --no-privileges --file=- "$FILE"
 } | PGOPTIONS="-c client_min_messages=warning" "$PSQL" "$URL" -q -v ON_ERROR_STOP=1 --single-transaction >/dev/null
 echo "Restored $FILE into $DB_NAME" >&2

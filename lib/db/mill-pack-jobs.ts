@@ -76,6 +76,11 @@ async function accessibleJob(user: SessionUser, id: string, q: Db): Promise<JobR
   return row;
 }
 
+/** Marks a job that could not be put on the queue as failed, with the reason. */
+export async function failMillPackJob(jobId: string, message: string, q: Db = db()): Promise<void> {
+  await q('mill_pack_jobs').where({ id: jobId, status: 'queued' }).update({ status: 'failed', step: 'Failed', error: message.slice(0, 500), finished_at: q.fn.now() });
+}
+
 export async function findMillPackJob(user: SessionUser, id: string, q: Db = db()): Promise<MillPackJob> {
   return toJob(await accessibleJob(user, id, q));
 }
@@ -103,10 +108,12 @@ export async function createMillPackJob(user: SessionUser, styleId: string, inpu
  * Builds a queued pack: reads the data, renders the PDF with progress written to the job, stores
  * the file and marks the job done — or failed, with the reason, leaving no file behind.
  */
-export async function runMillPackJob(jobId: string, store: ObjectStore, q: Knex = db()): Promise<void> {
+export async function runMillPackJob(jobId: string, store: ObjectStore, q: Knex = db(), opts: { takeOver?: boolean } = {}): Promise<void> {
+  // Queued, or (when the queue hands out a job whose first server stopped mid-build) still marked running.
+  const claimable: JobStatus[] = opts.takeOver ? ['queued', 'running'] : ['queued'];
   const job = (await q('mill_pack_jobs').where({ id: jobId }).first()) as JobRow | undefined;
-  if (!job || job.status !== 'queued') return;
-  const claimed = await q('mill_pack_jobs').where({ id: jobId, status: 'queued' }).update({ status: 'running', step: 'Reading the style', progress: 1 });
+  if (!job || !claimable.includes(job.status)) return;
+  const claimed = await q('mill_pack_jobs').where({ id: jobId }).whereIn('status', claimable).update({ status: 'running', step: 'Reading the style', progress: 1 });
   if (claimed === 0) return;
   let lastWrite = 0;
   const progress = async (percent: number, step: string) => {

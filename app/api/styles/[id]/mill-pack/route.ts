@@ -1,16 +1,23 @@
-import { NextResponse, after } from 'next/server';
+import { NextResponse } from 'next/server';
 import { route, parseBody } from '@/lib/api/handler';
 import { authorize } from '@/lib/auth/authorize';
-import { createMillPackJob, runMillPackJob } from '@/lib/db/mill-pack-jobs';
-import { objectStore } from '@/lib/storage/object-store';
+import { HttpError } from '@/lib/api/errors';
+import { createMillPackJob, failMillPackJob } from '@/lib/db/mill-pack-jobs';
+import { enqueue, queues } from '@/lib/jobs/queue';
 import { millPackStartSchema, styleIdParamSchema } from '@/lib/validations/mill';
 
-/** Starts building the mill pack PDF on the server; poll the job for progress. */
+/** Starts building the mill pack PDF: the job goes on the queue; poll it for progress. */
 export const POST = route<{ id: string }>(async (req, params) => {
   const user = await authorize('mill:download');
   const { id } = styleIdParamSchema.parse(params);
   const input = await parseBody(req, millPackStartSchema);
   const job = await createMillPackJob(user, id, input);
-  after(() => runMillPackJob(job.id, objectStore()));
+  try {
+    await enqueue(queues.millPack.name, { jobId: job.id });
+  } catch (err) {
+    console.error('Mill pack: the job could not be queued', err);
+    await failMillPackJob(job.id, 'The job queue could not be reached; nothing was built.').catch(() => {});
+    throw new HttpError(503, 'The mill pack could not be started just now. Try again in a moment.');
+  }
   return NextResponse.json({ job }, { status: 202 });
 });
