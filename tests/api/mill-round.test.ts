@@ -16,7 +16,7 @@ import { readPhys } from '@/lib/mill/png';
 
 const mailDir = () => inject('mailDir');
 
-interface Caught { id: string; to: string[]; subject: string; text: string }
+interface Caught { id: string; to: string[]; subject: string; text: string; html: string | null }
 
 async function caughtMail(): Promise<Caught[]> {
   const names = (await readdir(mailDir()).catch(() => [] as string[])).filter((n) => n.endsWith('.json'));
@@ -117,6 +117,35 @@ describe('release to mills', () => {
     expect(second.status).toBe(201);
     expect(second.json.release.revision).toBe(2);
     expect((await mill.get(`/api/releases/${second.json.release.id}`)).json.release.snapshot.textures).toHaveLength(1);
+  });
+
+  it('markup and SQL-like text in a name and a note stay text in the e-mail, the pages and the PDF', { timeout: 60_000 }, async () => {
+    const designer = await as('designer');
+    const name = `<b onmouseover=alert(1)>Ridge</b> '; drop table styles; -- ${Date.now().toString(36)}`;
+    const note = '<script>alert("nm-note")</script> \' OR 1=1 --';
+    const created = (await designer.post('/api/styles', { ...newStyleBody(), name })).json.style as { id: string; version: number };
+    const put = await designer.put(`/api/styles/${created.id}/textures`, { version: created.version, textureIds: textureIds.slice(0, 1) });
+    const res = await designer.post(`/api/styles/${created.id}/releases`, { version: put.json.version, millIds: [orgs.quellmoor], note });
+    expect(res.status).toBe(201);
+    const release = res.json.release;
+    // The e-mail is plain text, with the name and the note exactly as typed (no HTML part to inject into).
+    const mail = await waitForMail((m) => m.to.includes('mill@quellmoor.example') && m.text.includes(`/releases/${release.id}`));
+    expect(mail.html).toBeNull();
+    expect(mail.text).toContain(note);
+    expect(mail.subject + mail.text).toContain(name);
+    // The release page shows them escaped.
+    const page = await designer.get(`/releases/${release.id}`);
+    expect(page.status).toBe(200);
+    expect(page.text).not.toContain('<script>alert("nm-note")');
+    expect(page.text).not.toContain('<b onmouseover');
+    expect(page.text).toContain('&lt;script&gt;alert(&quot;nm-note&quot;)&lt;/script&gt;');
+    // The swatch sheet prints the name as it is.
+    const pdf = await getBytes(designer, `/api/styles/${created.id}/exports/swatch-sheet.pdf?release=${release.id}`);
+    expect(pdf.status).toBe(200);
+    const text = (await readPdf(pdf.bytes)).map((p) => p.text).join(' ');
+    expect(text.replace(/\s+/g, ' ')).toContain(name.replace(/\s+/g, ' '));
+    // And the styles table still holds every style.
+    expect((await designer.get('/api/styles')).json.styles.length).toBeGreaterThan(5);
   });
 
   it('answers bad input with field errors and a stale version with 409, saving nothing', async () => {
