@@ -273,7 +273,7 @@ export function FitWorkspace({ styleId, initial, readOnly }: { styleId: string; 
             spec={spec}
             unit={unit}
             readOnly={readOnly}
-            blocked={dirty ? 'The spec has unsaved changes: save or discard them before recording rounds or deciding corrections.' : null}
+            blocked={dirty ? 'The spec has unsaved changes: save or discard them before recording or editing rounds and deciding corrections (photos and comments can go on).' : null}
             onDoc={setFit}
           />
         </div>

@@ -1,7 +1,7 @@
 'use client';
 
 import { useMemo, useState } from 'react';
-import { useForm, type Resolver } from 'react-hook-form';
+import { useForm, useWatch, type Resolver } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { api, ApiError } from '@/lib/api/client';
@@ -15,6 +15,7 @@ import { Card, Notice } from '@/components/ui/card';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Select } from '@/components/ui/field';
 import { len, signedLen } from './format';
+import { PhotoThumbnails, RoundPhotos } from './round-photos';
 
 const deviationTone: Record<DeviationStatus, string> = {
   within: 'text-spruce-700',
@@ -86,7 +87,7 @@ export function SampleRoundsCard({
     <Card
       title="Sample rounds"
       actions={
-        <div className="flex items-center gap-1" role="tablist" aria-label="Sample round view">
+        <div className="flex flex-wrap items-center justify-end gap-1" role="tablist" aria-label="Sample round view">
           {doc.rounds.map((r) => (
             <Button key={r.id} size="sm" role="tab" aria-selected={mode === 'round' && round?.id === r.id} variant={mode === 'round' && round?.id === r.id ? 'primary' : 'ghost'} onClick={() => { setSelected(r.id); setMode('round'); }}>
               R{r.roundNo} {sampleRoundKindLabels[r.kind]}
@@ -103,7 +104,7 @@ export function SampleRoundsCard({
     >
       {blocked && !readOnly ? <div className="mb-3"><Notice tone="warn">{blocked}</Notice></div> : null}
       {mode === 'record' && !readOnly ? (
-        <RecordRound doc={doc} points={points} unit={unit} disabled={!!blocked} onRecorded={(d, id) => { onDoc(d); setSelected(id); setMode('round'); }} onDoc={onDoc} />
+        <RoundForm doc={doc} points={points} unit={unit} disabled={!!blocked} onDone={(d, id) => { onDoc(d); setSelected(id); setMode('round'); }} onDoc={onDoc} />
       ) : mode === 'compare' ? (
         <CompareRounds doc={doc} spec={spec} unit={unit} />
       ) : round ? (
@@ -137,34 +138,55 @@ function roundFormSchema(unit: LengthUnit) {
 }
 type RoundForm = z.infer<ReturnType<typeof roundFormSchema>>;
 
-function RecordRound({ doc, points, unit, disabled, onRecorded, onDoc }: {
-  doc: FitDocument; points: PointKey[]; unit: LengthUnit; disabled: boolean; onRecorded: (doc: FitDocument, roundId: string) => void;
-  onDoc: (doc: FitDocument) => void;
+/**
+ * Records a new round, or (given `round`) changes one: its details and measurements. Beside each
+ * point it shows the spec the sample is held against and, as a value is typed, its deviation. On
+ * an edit, values left as they were shown are sent as stored, so nothing moves by rounding.
+ */
+function RoundForm({ doc, round, points, unit, disabled, onDone, onCancel, onDoc }: {
+  doc: FitDocument; round?: SampleRound; points: PointKey[]; unit: LengthUnit; disabled: boolean;
+  onDone: (doc: FitDocument, roundId: string) => void; onCancel?: () => void; onDoc: (doc: FitDocument) => void;
 }) {
   const [serverError, setServerError] = useState<string | null>(null);
   const schema = useMemo(() => roundFormSchema(unit), [unit]);
+  const shown = useMemo(
+    () => Object.fromEntries(points.map((p) => [p, formatLength(round?.measurements.find((m) => m.point === p)?.measuredCm, unit)])),
+    [points, round, unit],
+  );
   const form = useForm<RoundForm>({
     resolver: zodResolver(schema) as Resolver<RoundForm>,
-    defaultValues: {
-      kind: doc.rounds.length === 0 ? 'proto' : 'fit', size: doc.spec.baseSize, receivedOn: '', notes: '',
-      measurements: Object.fromEntries(points.map((p) => [p, ''])),
-    },
+    defaultValues: round
+      ? { kind: round.kind, size: round.size, receivedOn: round.receivedOn ?? '', notes: round.notes, measurements: shown }
+      : { kind: doc.rounds.length === 0 ? 'proto' : 'fit', size: doc.spec.baseSize, receivedOn: '', notes: '', measurements: shown },
   });
-  const { register, handleSubmit, formState: { errors, isSubmitting }, setError } = form;
+  const { register, handleSubmit, control, formState: { errors, isSubmitting }, setError } = form;
+  const size = useWatch({ control, name: 'size' });
+  const typed = useWatch({ control, name: 'measurements' });
+  /** The spec and tolerance a point is held against: the one it was recorded with, or today's. */
+  const heldAgainst = (point: PointKey): { specCm: number | null; toleranceCm: number } | null => {
+    const kept = round && size === round.size ? round.measurements.find((m) => m.point === point) : undefined;
+    if (kept) return { specCm: kept.specCm, toleranceCm: kept.toleranceCm };
+    const p = doc.spec.points.find((x) => x.point === point);
+    return p ? { specCm: resolvePoint(p, doc.sizes, doc.spec.baseSize)[size]?.valueCm ?? null, toleranceCm: p.toleranceCm } : null;
+  };
   const onSubmit = handleSubmit(async (v) => {
     setServerError(null);
     const measurements = Object.fromEntries(
       Object.entries(v.measurements).flatMap(([p, raw]) => {
+        const stored = round?.measurements.find((m) => m.point === p);
+        if (stored && raw === shown[p]) return [[p, stored.measuredCm]];
         const cm = parseLengthCm(raw, unit);
         return cm === null || Number.isNaN(cm) ? [] : [[p, cm]];
       }),
     );
+    const body = { version: doc.version, kind: v.kind, size: v.size, receivedOn: v.receivedOn || null, notes: v.notes, measurements };
     try {
-      const res = await api<{ round: SampleRound; fit: FitDocument }>(`/api/styles/${doc.styleId}/fit/rounds`, {
-        method: 'POST',
-        json: { version: doc.version, kind: v.kind, size: v.size, receivedOn: v.receivedOn || null, notes: v.notes, measurements },
-      });
-      onRecorded(res.fit, res.round.id);
+      if (round) {
+        onDone((await api<{ fit: FitDocument }>(`/api/styles/${doc.styleId}/fit/rounds/${round.id}`, { method: 'PATCH', json: body })).fit, round.id);
+      } else {
+        const res = await api<{ round: SampleRound; fit: FitDocument }>(`/api/styles/${doc.styleId}/fit/rounds`, { method: 'POST', json: body });
+        onDone(res.fit, res.round.id);
+      }
     } catch (err) {
       if (err instanceof ApiError) {
         for (const [path, msgs] of Object.entries(err.fieldErrors)) setError(path as keyof RoundForm, { message: msgs[0] });
@@ -173,7 +195,7 @@ function RecordRound({ doc, points, unit, disabled, onRecorded, onDoc }: {
     }
   });
   return (
-    <form onSubmit={onSubmit} className="space-y-3" aria-label="Record a sample round">
+    <form onSubmit={onSubmit} className="space-y-3" aria-label={round ? `Edit round ${round.roundNo}` : 'Record a sample round'}>
       <div className="grid grid-cols-2 gap-3 md:grid-cols-4">
         <Field label="Kind" error={errors.kind?.message}>
           {(id) => (
@@ -190,21 +212,37 @@ function RecordRound({ doc, points, unit, disabled, onRecorded, onDoc }: {
         </Field>
       </div>
       <div>
-        <div className="mb-1 text-xs font-medium text-ink-soft">Measured, flat and relaxed ({unit})</div>
+        <div className="mb-1 text-xs font-medium text-ink-soft">Measured, flat and relaxed ({unit}) · size {size}</div>
         <div className="grid grid-cols-2 gap-x-3 gap-y-2 md:grid-cols-4">
-          {points.map((p) => (
-            <Field key={p} label={pointsOfMeasure[p].label} error={errors.measurements?.[p]?.message}>
-              {(id) => <Input id={id} inputMode="decimal" className="figures text-right" aria-invalid={!!errors.measurements?.[p]} {...register(`measurements.${p}`)} />}
-            </Field>
-          ))}
+          {points.map((p) => {
+            const held = heldAgainst(p);
+            const cm = parseLengthCm(typed?.[p] ?? '', unit);
+            const d = held && cm !== null && !Number.isNaN(cm) && cm > 0 ? deviationOf(cm, held.specCm, held.toleranceCm) : null;
+            return (
+              <Field key={p} label={pointsOfMeasure[p].label} error={errors.measurements?.[p]?.message}>
+                {(id) => (
+                  <>
+                    <Input id={id} inputMode="decimal" className="figures text-right" aria-invalid={!!errors.measurements?.[p]} {...register(`measurements.${p}`)} />
+                    <p className="figures flex justify-between gap-2 text-2xs text-ink-faint" data-testid={`held-${p}`}>
+                      <span>{held?.specCm !== null && held?.specCm !== undefined ? `spec ${len(held.specCm, unit)} ± ${formatLength(held.toleranceCm, unit)}` : 'no spec'}</span>
+                      {d && d.deviationCm !== null ? <span className={`rounded px-0.5 ${deviationTone[d.status]}`}>{signedLen(d.deviationCm, unit)}</span> : null}
+                    </p>
+                  </>
+                )}
+              </Field>
+            );
+          })}
         </div>
       </div>
       <Field label="Notes" error={errors.notes?.message}>
         {(id) => <textarea id={id} rows={2} className="block w-full rounded-md border border-rule-strong bg-panel px-2.5 py-1.5 text-sm" {...register('notes')} />}
       </Field>
       {serverError ? <Notice tone="error">{serverError}</Notice> : null}
-      <div className="flex justify-end">
-        <Button type="submit" variant="primary" disabled={disabled || isSubmitting}>{isSubmitting ? 'Recording…' : 'Record round'}</Button>
+      <div className="flex justify-end gap-2">
+        {onCancel ? <Button type="button" variant="ghost" onClick={onCancel}>Cancel</Button> : null}
+        <Button type="submit" variant="primary" disabled={disabled || isSubmitting}>
+          {round ? (isSubmitting ? 'Saving…' : 'Save round') : isSubmitting ? 'Recording…' : 'Record round'}
+        </Button>
       </div>
     </form>
   );
@@ -216,6 +254,8 @@ function RoundView({ doc, round, spec, unit, readOnly, disabled, onDoc }: {
   doc: FitDocument; round: SampleRound; spec: SizeSpec; unit: LengthUnit; readOnly: boolean; disabled: boolean; onDoc: (doc: FitDocument) => void;
 }) {
   const [correcting, setCorrecting] = useState<PointKey | null>(null);
+  const [deleting, setDeleting] = useState(false);
+  const [editing, setEditing] = useState(false);
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
   const specNow = (point: PointKey, size: string) => {
@@ -242,12 +282,37 @@ function RoundView({ doc, round, spec, unit, readOnly, disabled, onDoc }: {
     <div className="space-y-3" data-testid="sample-round">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <h3 className="text-sm font-semibold">{roundTitle(round)}</h3>
-        <div className="text-xs text-ink-soft">
-          {round.receivedOn ? <>received <span className="figures">{round.receivedOn}</span> · </> : null}
-          recorded by {round.createdBy ?? '—'} · <span className={outside ? 'font-semibold text-madder-700' : 'text-spruce-700'}>{outside} of {round.measurements.length} out of tolerance</span>
+        <div className="flex items-baseline gap-3 text-xs text-ink-soft">
+          <span>
+            {round.receivedOn ? <>received <span className="figures">{round.receivedOn}</span> · </> : null}
+            recorded by {round.createdBy ?? '—'} · <span className={outside ? 'font-semibold text-madder-700' : 'text-spruce-700'}>{outside} of {round.measurements.length} out of tolerance</span>
+          </span>
+          {readOnly ? null : (
+            <span className="flex gap-1">
+              <Button size="sm" variant="ghost" aria-pressed={editing} disabled={disabled && !editing} title={disabled ? 'Save or discard the spec first' : undefined} onClick={() => { setEditing(!editing); setDeleting(false); }}>Edit round</Button>
+              <Button size="sm" variant="ghost" className="text-madder-700" aria-expanded={deleting} onClick={() => { setDeleting(!deleting); setEditing(false); }}>Delete round…</Button>
+            </span>
+          )}
         </div>
       </div>
-      {round.notes ? <p className="text-sm text-ink-soft">{round.notes}</p> : null}
+      {deleting && !readOnly ? (
+        <DeleteRound doc={doc} round={round} unit={unit} onCancel={() => setDeleting(false)} onDoc={onDoc} />
+      ) : null}
+      {editing && !readOnly ? (
+        <div className="rounded-md border border-rule bg-paper/60 p-3">
+          <RoundForm
+            doc={doc}
+            round={round}
+            points={[...new Set([...spec.points.map((p) => p.point), ...round.measurements.map((m) => m.point)])]}
+            unit={unit}
+            disabled={disabled}
+            onDone={(d) => { onDoc(d); setEditing(false); }}
+            onCancel={() => setEditing(false)}
+            onDoc={onDoc}
+          />
+        </div>
+      ) : null}
+      {round.notes && !editing ? <p className="whitespace-pre-wrap text-sm text-ink-soft">{round.notes}</p> : null}
       <table className="w-full border-separate border-spacing-0 text-sm">
         <thead className="text-xs text-ink-soft">
           <tr>
@@ -305,6 +370,8 @@ function RoundView({ doc, round, spec, unit, readOnly, disabled, onDoc }: {
       ) : null}
       {error ? <Notice tone="error">{error}</Notice> : null}
 
+      <RoundPhotos doc={doc} round={round} title={roundTitle(round)} readOnly={readOnly} onDoc={onDoc} />
+
       <section aria-label="Corrections">
         <h4 className="mb-1 text-xs font-semibold uppercase tracking-[0.06em] text-ink-soft">Corrections</h4>
         {round.corrections.length === 0 ? <p className="text-sm text-ink-faint">None proposed.</p> : (
@@ -336,7 +403,69 @@ function RoundView({ doc, round, spec, unit, readOnly, disabled, onDoc }: {
         )}
       </section>
 
-      <Comments doc={doc} round={round} readOnly={readOnly} disabled={disabled} onDoc={onDoc} />
+      <Comments doc={doc} round={round} readOnly={readOnly} onDoc={onDoc} />
+    </div>
+  );
+}
+
+/**
+ * The confirmation before a round is deleted: what goes with it, and that the spec keeps the
+ * changes of its accepted corrections. A 409 loads the newer version and asks again.
+ */
+function DeleteRound({ doc, round, unit, onCancel, onDoc }: {
+  doc: FitDocument; round: SampleRound; unit: LengthUnit; onCancel: () => void; onDoc: (doc: FitDocument) => void;
+}) {
+  const [error, setError] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+  const accepted = round.corrections.filter((c) => c.status === 'accepted');
+  const proposed = round.corrections.filter((c) => c.status === 'proposed').length;
+  const n = (count: number, one: string) => (count ? [`${count} ${count === 1 ? one : `${one}s`}`] : []);
+  const parts = [
+    ...n(round.measurements.length, 'measurement'), ...n(round.comments.length, 'comment'), ...n(round.photos.length, 'photo'), ...n(round.corrections.length, 'correction'),
+  ];
+  const holds = parts.length > 1 ? `${parts.slice(0, -1).join(', ')} and ${parts.at(-1)}` : parts[0];
+  const later = doc.rounds.filter((r) => r.roundNo > round.roundNo).map((r) => r.roundNo);
+  const confirm = async () => {
+    setBusy(true);
+    setError(null);
+    try {
+      onDoc((await api<{ fit: FitDocument }>(`/api/styles/${doc.styleId}/fit/rounds/${round.id}?version=${doc.version}`, { method: 'DELETE' })).fit);
+    } catch (err) {
+      if (err instanceof ApiError && err.status === 409) {
+        setError(`${await failure(err, doc.styleId, onDoc)} Check what the round holds now before you delete it.`);
+      } else if (err instanceof ApiError && err.status === 404) {
+        setError('This round is gone already: someone deleted it.');
+        await api<{ fit: FitDocument }>(`/api/styles/${doc.styleId}/fit`).then((r) => onDoc(r.fit)).catch(() => {});
+      } else setError(errorText(err));
+    } finally {
+      setBusy(false);
+    }
+  };
+  return (
+    <div role="alertdialog" aria-label={`Delete ${roundTitle(round)}`} className="space-y-1.5 rounded-md border border-madder-500/40 bg-madder-50 p-3 text-sm text-ink">
+      <p className="font-semibold text-madder-700">Delete round {round.roundNo}?{holds ? ` Its ${holds} ${parts.length === 1 && holds.startsWith('1 ') ? 'is' : 'are'} deleted with it.` : ' It holds nothing else.'}</p>
+      {accepted.length ? (
+        <div>
+          <p>The spec keeps what its accepted {accepted.length === 1 ? 'correction' : 'corrections'} changed (each has its own history entry):</p>
+          <ul className="figures ml-4 list-disc text-xs">
+            {accepted.map((c) => (
+              <li key={c.id}><span className="font-sans">{pointsOfMeasure[c.point].label}</span> {c.size}: {len(c.fromCm, unit) || '—'} → {len(c.toCm, unit)} {unit}{c.scope === 'point' ? <span className="font-sans"> (every size)</span> : null}</li>
+            ))}
+          </ul>
+          <p className="text-xs text-ink-soft">To undo a change, edit the size spec.</p>
+        </div>
+      ) : (
+        <p>No correction of this round was accepted: the spec does not change.</p>
+      )}
+      {proposed ? <p>{proposed === 1 ? 'Its correction still waiting for a decision is' : `Its ${proposed} corrections still waiting for a decision are`} dropped.</p> : null}
+      <p className="text-xs text-ink-soft">
+        The deletion is recorded in the style&rsquo;s history.{later.length ? ` ${later.length === 1 ? `Round ${later[0]} keeps its number` : `Rounds ${later.join(', ')} keep their numbers`}.` : ''}
+      </p>
+      {error ? <p role="alert" className="text-xs text-madder-700">{error}</p> : null}
+      <div className="flex gap-2 pt-1">
+        <Button size="sm" variant="danger" className="border-madder-700! bg-madder-700! text-white! hover:bg-madder-500!" disabled={busy} onClick={confirm}>{busy ? 'Deleting…' : `Delete round ${round.roundNo}`}</Button>
+        <Button size="sm" variant="ghost" disabled={busy} onClick={onCancel}>Keep it</Button>
+      </div>
     </div>
   );
 }
@@ -390,7 +519,7 @@ function ProposeCorrection({ point, size, currentCm, unit, busy, onCancel, onPro
 const commentSchema = z.object({ body: z.string().trim().min(1, 'Write a comment').max(4000, 'At most 4000 characters') });
 type CommentForm = z.infer<typeof commentSchema>;
 
-function Comments({ doc, round, readOnly, disabled, onDoc }: { doc: FitDocument; round: SampleRound; readOnly: boolean; disabled: boolean; onDoc: (d: FitDocument) => void }) {
+function Comments({ doc, round, readOnly, onDoc }: { doc: FitDocument; round: SampleRound; readOnly: boolean; onDoc: (d: FitDocument) => void }) {
   const [error, setError] = useState<string | null>(null);
   const { register, handleSubmit, reset, formState: { errors, isSubmitting } } = useForm<CommentForm>({
     resolver: zodResolver(commentSchema) as Resolver<CommentForm>, defaultValues: { body: '' },
@@ -426,7 +555,7 @@ function Comments({ doc, round, readOnly, disabled, onDoc }: { doc: FitDocument;
             {errors.body ? <p role="alert" className="mt-1 text-xs text-madder-700">{errors.body.message}</p> : null}
             {error ? <p role="alert" className="mt-1 text-xs text-madder-700">{error}</p> : null}
           </div>
-          <Button type="submit" disabled={disabled || isSubmitting}>Comment</Button>
+          <Button type="submit" disabled={isSubmitting}>Comment</Button>
         </form>
       )}
     </section>
@@ -450,6 +579,18 @@ function CompareRounds({ doc, spec, unit }: { doc: FitDocument; spec: SizeSpec; 
           </tr>
         </thead>
         <tbody className="figures">
+          {doc.rounds.some((r) => r.photos.length) ? (
+            <tr data-testid="compare-photos">
+              <th scope="row" className="border-b border-rule px-2 py-1.5 text-left align-top font-sans text-[13px] font-medium">Photos</th>
+              <td className="border-b border-rule" />
+              {doc.rounds.map((r) => (
+                <td key={r.id} className="border-b border-l border-rule px-2 py-1.5 align-top">
+                  {r.photos.length ? <PhotoThumbnails title={roundTitle(r)} photos={r.photos} size={44} className="justify-end" /> : <span className="text-ink-faint">—</span>}
+                </td>
+              ))}
+              <td className="border-b border-l border-rule" />
+            </tr>
+          ) : null}
           {spec.points.map((p) => {
             const now = resolvePoint(p, doc.sizes, spec.baseSize)[spec.baseSize]?.valueCm ?? null;
             const corrections = doc.rounds.flatMap((r) => r.corrections.filter((c) => c.point === p.point).map((c) => ({ r, c })));

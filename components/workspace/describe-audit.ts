@@ -17,6 +17,9 @@ const verbs: Record<string, string> = {
   'fit.round.create': 'Recorded sample round',
   'fit.round.update': 'Edited sample round',
   'fit.round.comment': 'Commented on sample round',
+  'fit.round.delete': 'Deleted sample round',
+  'fit.round.photo.add': 'Added a photo to sample round',
+  'fit.round.photo.remove': 'Removed a photo from sample round',
   'fit.correction.propose': 'Proposed a correction',
   'fit.correction.accept': 'Accepted a correction',
   'fit.correction.reject': 'Rejected a correction',
@@ -96,7 +99,15 @@ function describeFit(action: string, verb: string, d: Record<string, unknown>): 
     return `${verb}${points ? ` (${points} point${points === 1 ? '' : 's'} changed)` : ''}`;
   }
   if (action === 'fit.factor') return `${verb}: ${typeof d.from === 'number' ? d.from.toFixed(4) : '—'} → ${typeof d.to === 'number' ? d.to.toFixed(4) : '—'}`;
-  if (action.startsWith('fit.round.')) return `${verb} ${String(d.roundNo ?? '')}${typeof d.size === 'string' ? ` (${String(d.kind ?? '')}, size ${d.size})` : ''}`;
+  if (action.startsWith('fit.round.')) {
+    const round = `${verb} ${String(d.roundNo ?? '')}${typeof d.size === 'string' ? ` (${String(d.kind ?? '')}, size ${d.size})` : ''}`;
+    if (action.startsWith('fit.round.photo.')) return typeof d.name === 'string' && d.name ? `${round}: ${d.name}` : round;
+    if (action === 'fit.round.delete') {
+      const accepted = typeof d.corrections === 'object' && d.corrections !== null ? Number((d.corrections as Record<string, unknown>).accepted ?? 0) : 0;
+      return accepted > 0 ? `${round}; the spec keeps its ${accepted} accepted correction${accepted === 1 ? '' : 's'}` : round;
+    }
+    return round;
+  }
   const scope = d.scope === 'point' ? ', every size' : '';
   const point = typeof d.point === 'string' && isPointKey(d.point) ? pointsOfMeasure[d.point].label.toLowerCase() : String(d.point ?? '');
   const change = action === 'fit.correction.propose' ? `→ ${num(d.toCm)}` : `${num(d.fromCm)} → ${num(d.toCm)}`;

@@ -63,8 +63,10 @@ const specs: DemoSpec[] = [
 
 export async function seed(knex: Knex): Promise<void> {
   await knex.raw(
-    'truncate table sample_corrections, sample_comments, sample_measurements, sample_rounds, cut_and_sew_entries, size_body_girths, size_spec_overrides, size_spec_points, size_specs restart identity cascade',
+    'truncate table sample_round_photos, sample_corrections, sample_comments, sample_measurements, sample_rounds, cut_and_sew_entries, size_body_girths, size_spec_overrides, size_spec_points, size_specs restart identity cascade',
   );
+  // Round photos live in the object store, which the seed does not reach: the demo rounds have none.
+  await knex('files').where({ purpose: 'sample-round-photo' }).del();
 
   const studio = await knex('studios').where({ name: 'Hollowfell Knit Lab' }).first();
   const designer = await knex('users').where({ email: 'designer@hollowfell.example' }).first();

@@ -8,7 +8,7 @@ import { can, isOutsideRole } from '@/lib/auth/roles';
 import type { InspectedUpload, UploadKind } from '@/lib/files/inspect';
 import type { ObjectStore } from '@/lib/storage/object-store';
 
-export type FilePurpose = 'attachment' | 'test-knit-photo' | 'mill-pack' | 'brief-reference';
+export type FilePurpose = 'attachment' | 'test-knit-photo' | 'mill-pack' | 'brief-reference' | 'sample-round-photo';
 
 export interface StoredFile {
   id: string;
@@ -97,7 +97,8 @@ const fileNotFound = () => notFound('File not found.');
 
 /**
  * A file the user may download: the studio's staff any file of the studio; an outside account the
- * files its own organisation uploaded, and (mills) the mill packs of releases sent to it.
+ * files its own organisation uploaded, the photos of the sample rounds of a style shared with it
+ * (it reads those rounds), and (mills) the mill packs of releases sent to it.
  */
 export async function findFileForUser(user: SessionUser, fileId: string, q: Db = db()): Promise<StoredFile> {
   const row = (await q('files as f')
@@ -112,6 +113,8 @@ export async function findFileForUser(user: SessionUser, fileId: string, q: Db =
   }
   if (!isOutsideRole(user.role)) return toFile(row);
   if (row.organisation_id && row.organisation_id === user.organisationId) return toFile(row);
+  // The style was found above, so it is shared with this account, which reads its rounds.
+  if (row.purpose === 'sample-round-photo' && row.style_id) return toFile(row);
   if (row.purpose === 'mill-pack' && row.release_id && user.role === 'mill') {
     if (!can(user.role, 'mill:download')) throw forbidden();
     const sent = await q('release_mills').where({ release_id: row.release_id, organisation_id: user.organisationId ?? '' }).first();

@@ -2,7 +2,10 @@ import type { Knex } from 'knex';
 import { db, type Db } from './knex';
 import type { SessionUser } from './users';
 import { findStyle, type Style } from './styles';
+import { storeFile, withStoredFiles } from './files';
 import { conflict, HttpError, notFound } from '@/lib/api/errors';
+import type { InspectedUpload } from '@/lib/files/inspect';
+import type { ObjectStore } from '@/lib/storage/object-store';
 import type { ForceExtensionPoint } from '@/lib/knit/texture';
 import type { TextureFunction } from '@/lib/validations/library';
 import type {
@@ -37,10 +40,15 @@ export interface SampleCorrection {
   id: string; roundId: string; point: PointKey; size: string; fromCm: number | null; toCm: number; scope: CorrectionScope;
   reason: string; status: CorrectionStatus; proposedBy: string | null; proposedAt: string; decidedBy: string | null; decidedAt: string | null;
 }
+/** A photo of a round's sample; `url` is the private download route, which checks the caller. */
+export interface SampleRoundPhoto {
+  id: string; fileId: string; url: string; name: string; contentType: string; widthPx: number | null; heightPx: number | null;
+  byteSize: number; uploadedBy: string | null; createdAt: string;
+}
 export interface SampleRound {
   id: string; roundNo: number; kind: SampleRoundKind; size: string; receivedOn: string | null; notes: string;
   createdBy: string | null; createdAt: string; updatedAt: string;
-  measurements: SampleMeasurement[]; comments: SampleComment[]; corrections: SampleCorrection[];
+  measurements: SampleMeasurement[]; comments: SampleComment[]; corrections: SampleCorrection[]; photos: SampleRoundPhoto[];
 }
 
 export interface StudioSeamlessFactor {
@@ -92,14 +100,18 @@ async function visibleStyle(user: SessionUser, styleId: string, q: Db): Promise<
   return style;
 }
 
-/** Raises the style's version when `version` is the stored one; otherwise 409 and nothing changes. */
-async function bumpVersion(user: SessionUser, style: Style, version: number, trx: Knex.Transaction): Promise<number> {
+/**
+ * Raises the style's version when `version` is the stored one; otherwise 409 and nothing changes.
+ * `null` raises it whatever it is, for writes that cannot collide with another (a photo added or
+ * removed): a write carrying the older version, such as deleting that round, then gets its 409.
+ */
+async function bumpVersion(user: SessionUser, style: Style, version: number | null, trx: Knex.Transaction): Promise<number> {
   const bumped = await trx('styles')
-    .where({ id: style.id, studio_id: user.studioId, version })
+    .where({ id: style.id, studio_id: user.studioId, ...(version === null ? {} : { version }) })
     .whereNull('archived_at')
     .update({ version: trx.raw('version + 1'), updated_at: trx.fn.now() })
     .returning('version');
-  if (bumped.length === 0) throw stale(style.version);
+  if (bumped.length === 0) throw version === null ? notFound('Style not found.') : stale(style.version);
   return (bumped[0] as { version: number }).version;
 }
 
@@ -187,7 +199,7 @@ async function loadRounds(styleId: string, q: Db): Promise<SampleRound[]> {
   }[];
   if (rounds.length === 0) return [];
   const ids = rounds.map((r) => r.id);
-  const [measurements, comments, corrections] = await Promise.all([
+  const [measurements, comments, corrections, photos] = await Promise.all([
     q('sample_measurements').whereIn('round_id', ids) as Promise<{ round_id: string; point: PointKey; measured_cm: number; spec_cm: number | null; tolerance_cm: number }[]>,
     q('sample_comments as c').leftJoin('users as u', 'u.id', 'c.user_id').whereIn('c.round_id', ids).orderBy([{ column: 'c.created_at' }, { column: 'c.id' }])
       .select('c.*', 'u.name as user_name') as Promise<{ id: string; round_id: string; user_name: string | null; body: string; created_at: Date }[]>,
@@ -196,6 +208,12 @@ async function loadRounds(styleId: string, q: Db): Promise<SampleRound[]> {
       .select('k.*', 'p.name as proposed_by_name', 'd.name as decided_by_name') as Promise<{
         id: string; round_id: string; point: PointKey; size: string; from_cm: number | null; to_cm: number; scope: CorrectionScope; reason: string;
         status: CorrectionStatus; proposed_by_name: string | null; proposed_at: Date; decided_by_name: string | null; decided_at: Date | null;
+      }[]>,
+    q('sample_round_photos as p').join('files as f', 'f.id', 'p.file_id').leftJoin('users as u', 'u.id', 'p.created_by')
+      .whereIn('p.round_id', ids).orderBy([{ column: 'p.created_at' }, { column: 'p.id' }])
+      .select('p.id', 'p.round_id', 'p.file_id', 'p.created_at', 'f.original_name', 'f.content_type', 'f.width_px', 'f.height_px', 'f.byte_size', 'u.name as uploaded_by_name') as Promise<{
+        id: string; round_id: string; file_id: string; created_at: Date; original_name: string; content_type: string;
+        width_px: number | null; height_px: number | null; byte_size: number; uploaded_by_name: string | null;
       }[]>,
   ]);
   const order = (p: PointKey) => Object.keys(pointsOfMeasure).indexOf(p);
@@ -211,6 +229,10 @@ async function loadRounds(styleId: string, q: Db): Promise<SampleRound[]> {
       id: k.id, roundId: k.round_id, point: k.point, size: k.size, fromCm: k.from_cm, toCm: k.to_cm, scope: k.scope, reason: k.reason,
       status: k.status, proposedBy: k.proposed_by_name, proposedAt: k.proposed_at.toISOString(), decidedBy: k.decided_by_name,
       decidedAt: k.decided_at ? k.decided_at.toISOString() : null,
+    })),
+    photos: photos.filter((p) => p.round_id === r.id).map((p) => ({
+      id: p.id, fileId: p.file_id, url: `/api/files/${p.file_id}`, name: p.original_name, contentType: p.content_type,
+      widthPx: p.width_px, heightPx: p.height_px, byteSize: p.byte_size, uploadedBy: p.uploaded_by_name, createdAt: p.created_at.toISOString(),
     })),
   }));
 }
@@ -600,5 +622,95 @@ export async function decideCorrection(
       version, roundNo: round.round_no, point: c.point, size: c.size, fromCm, toCm: c.to_cm, scope: c.scope,
     }, trx);
   });
+  return loadFit(user, styleId, q);
+}
+
+/** Photos one round may hold. */
+export const maxRoundPhotos = 40;
+
+/**
+ * Attaches a photo (already inspected by content) to a round, with a history entry. The file's row,
+ * the stored object and the photo are written together or not at all. Carries no version (a photo
+ * collides with nothing) but raises it, so a round deletion made on an older view gets its 409.
+ */
+export async function addRoundPhoto(
+  user: SessionUser, styleId: string, roundId: string, photo: { upload: InspectedUpload; name: string }, store: ObjectStore, q: Knex = db(),
+): Promise<{ photo: SampleRoundPhoto; doc: FitDocument }> {
+  const id = await withStoredFiles(store, async (trx, written) => {
+    const style = await visibleStyle(user, styleId, trx);
+    const round = await roundOf(style.id, roundId, trx);
+    const count = Number(((await trx('sample_round_photos').where({ round_id: round.id }).count('* as n').first()) as { n: string | number }).n);
+    if (count >= maxRoundPhotos) throw fieldError('photo', `A round holds at most ${maxRoundPhotos} photos: remove one first`);
+    const version = await bumpVersion(user, style, null, trx);
+    const file = await storeFile(trx, store, {
+      studioId: user.studioId, styleId: style.id, organisationId: null, uploadedBy: user.id, purpose: 'sample-round-photo',
+      upload: photo.upload, originalName: photo.name,
+    }, written);
+    const [row] = (await trx('sample_round_photos').insert({ round_id: round.id, file_id: file.id, created_by: user.id }).returning('id')) as { id: string }[];
+    await audit(user, style.id, 'fit.round.photo.add', {
+      version, roundNo: round.round_no, kind: round.kind, size: round.size, name: file.originalName, widthPx: file.widthPx, heightPx: file.heightPx, bytes: file.byteSize,
+    }, trx);
+    return row!.id;
+  }, q);
+  const doc = await loadFit(user, styleId, q);
+  const added = doc.rounds.flatMap((r) => r.photos).find((p) => p.id === id);
+  if (!added) throw notFound('Photo not found.');
+  return { photo: added, doc };
+}
+
+/** The stored objects of a round's photos (all of them, or one), locked with their rows. */
+async function roundPhotoFiles(roundId: string, trx: Knex.Transaction, photoId?: string) {
+  const qb = trx('sample_round_photos as p').join('files as f', 'f.id', 'p.file_id').where('p.round_id', roundId);
+  if (photoId) qb.andWhere('p.id', photoId);
+  return (await qb.forUpdate().select('p.id', 'f.id as file_id', 'f.storage_key', 'f.original_name')) as
+    { id: string; file_id: string; storage_key: string; original_name: string }[];
+}
+
+/** Deletes stored objects once their rows are gone; a failure leaves an unreferenced object and is logged. */
+async function dropObjects(store: ObjectStore, keys: readonly string[]) {
+  for (const key of keys) await store.delete(key).catch((e) => console.error('Could not remove a sample-round photo from the store', key, e));
+}
+
+/** Removes a photo from a round and its stored image, with a history entry; raises the version as adding does. */
+export async function removeRoundPhoto(user: SessionUser, styleId: string, roundId: string, photoId: string, store: ObjectStore, q: Knex = db()): Promise<FitDocument> {
+  const key = await q.transaction(async (trx) => {
+    const style = await visibleStyle(user, styleId, trx);
+    const round = await roundOf(style.id, roundId, trx);
+    const [photo] = await roundPhotoFiles(round.id, trx, photoId);
+    if (!photo) throw notFound('Photo not found.');
+    const version = await bumpVersion(user, style, null, trx);
+    // The photo's row goes with its file (on delete cascade).
+    await trx('files').where({ id: photo.file_id, studio_id: user.studioId }).del();
+    await audit(user, style.id, 'fit.round.photo.remove', { version, roundNo: round.round_no, kind: round.kind, size: round.size, name: photo.original_name }, trx);
+    return photo.storage_key;
+  });
+  await dropObjects(store, [key]);
+  return loadFit(user, styleId, q);
+}
+
+/**
+ * Deletes a round with its measurements, comments, corrections and photos. The spec changes of its
+ * accepted corrections stay (they are the spec now, each with its own history entry); its proposed
+ * ones go with it. Carries the style's version (409 when stale); recorded in the style's history.
+ */
+export async function deleteSampleRound(user: SessionUser, styleId: string, roundId: string, version: number, store: ObjectStore, q: Knex = db()): Promise<FitDocument> {
+  const keys = await q.transaction(async (trx) => {
+    const style = await visibleStyle(user, styleId, trx);
+    const round = await roundOf(style.id, roundId, trx);
+    const next = await bumpVersion(user, style, version, trx);
+    const photos = await roundPhotoFiles(round.id, trx);
+    const count = async (table: string) => Number(((await trx(table).where({ round_id: round.id }).count('* as n').first()) as { n: string | number }).n);
+    const byStatus = (await trx('sample_corrections').where({ round_id: round.id }).groupBy('status').select('status').count('* as n')) as { status: CorrectionStatus; n: string | number }[];
+    const corrections = Object.fromEntries((['accepted', 'proposed', 'rejected'] as const).map((k) => [k, Number(byStatus.find((b) => b.status === k)?.n ?? 0)]));
+    const details = {
+      version: next, roundNo: round.round_no, kind: round.kind, size: round.size,
+      measured: await count('sample_measurements'), comments: await count('sample_comments'), photos: photos.length, corrections,
+    };
+    if (photos.length) await trx('files').whereIn('id', photos.map((p) => p.file_id)).andWhere('studio_id', user.studioId).del();
+    await trx('sample_rounds').where({ id: round.id }).del();
+    await audit(user, style.id, 'fit.round.delete', details, trx);
+    return photos.map((p) => p.storage_key);
+  });
+  await dropObjects(store, keys);
   return loadFit(user, styleId, q);
 }

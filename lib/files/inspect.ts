@@ -5,14 +5,11 @@
  */
 import { imageSize } from 'image-size';
 import { sanitiseSvg, SvgRejected } from './svg';
+import { uploadLimits, type UploadKind } from './limits';
 
-export const uploadKinds = ['photo', 'svg', 'pdf'] as const;
-export type UploadKind = (typeof uploadKinds)[number];
+export { uploadKinds, uploadLimits, type UploadKind } from './limits';
 
 const MB = 1024 * 1024;
-
-/** Size limit per kind, bytes. */
-export const uploadLimits: Record<UploadKind, number> = { photo: 10 * MB, svg: 1 * MB, pdf: 20 * MB };
 
 /** Photos: each side 1–12,000 px and at most 60 megapixels. */
 export const photoBounds = { maxSidePx: 12_000, maxMegapixels: 60 } as const;

@@ -124,3 +124,10 @@ export type CorrectionDecision = z.infer<typeof correctionDecisionSchema>;
 export const fitParamsSchema = z.object({ id: z.string().uuid('Not a valid id') });
 export const roundParamsSchema = z.object({ id: z.string().uuid('Not a valid id'), roundId: z.string().uuid('Not a valid id') });
 export const correctionParamsSchema = roundParamsSchema.extend({ correctionId: z.string().uuid('Not a valid id') });
+export const roundPhotoParamsSchema = roundParamsSchema.extend({ photoId: z.string().uuid('Not a valid id') });
+
+/** Deleting a round carries the style's version in the query string (`?version=12`). */
+export const sampleRoundDeleteSchema = z.object({
+  version: z.coerce.number({ error: 'The version you edited is required' }).int('The version you edited is required').positive('The version you edited is required'),
+});
+export type SampleRoundDelete = z.infer<typeof sampleRoundDeleteSchema>;

@@ -132,6 +132,21 @@ async function freshCorrection() {
   return { ...r, correctionId: fit.rounds[0].corrections[0].id as string, version: fit.version as number };
 }
 
+function roundPhotoForm() {
+  const form = new FormData();
+  form.set('photo', new Blob([tinyPng], { type: 'image/png' }), 'round.png');
+  return form;
+}
+
+/** A round with one photo, attached by the designer. */
+async function freshRoundPhoto() {
+  const designer = await as('designer');
+  const r = await freshRound();
+  const res = await fetch(baseUrl() + `/api/styles/${r.styleId}/fit/rounds/${r.roundId}/photos`, { method: 'POST', body: roundPhotoForm(), headers: { cookie: designer.cookie } });
+  const json = (await res.json()) as { photo: { id: string } };
+  return { ...r, photoId: json.photo.id };
+}
+
 // The mill round: releases, client review, test knits, files, exports and mill packs.
 const tinyPng = Buffer.from(
   'iVBORw0KGgoAAAANSUhEUgAAAAIAAAACCAIAAAD91JpzAAAAFklEQVR4nGP8z8DAwMDAxMDAwMDAAAANHQEDasKb6QAAAABJRU5ErkJggg==',
@@ -512,6 +527,27 @@ export const matrix: Record<string, Entry> = {
     run: async (c) => {
       const r = await freshRound();
       return c.patch(`/api/styles/${r.styleId}/fit/rounds/${r.roundId}`, { version: r.version, notes: 'Matrix note' });
+    },
+  },
+  'DELETE /api/styles/[id]/fit/rounds/[roundId]': {
+    expect: editors(200),
+    run: async (c) => {
+      const r = await freshRound();
+      return c.delete(`/api/styles/${r.styleId}/fit/rounds/${r.roundId}?version=${r.version}`);
+    },
+  },
+  'POST /api/styles/[id]/fit/rounds/[roundId]/photos': {
+    expect: editors(201),
+    run: async (c) => {
+      const r = await freshRound();
+      return postForm(c, `/api/styles/${r.styleId}/fit/rounds/${r.roundId}/photos`, roundPhotoForm());
+    },
+  },
+  'DELETE /api/styles/[id]/fit/rounds/[roundId]/photos/[photoId]': {
+    expect: editors(200),
+    run: async (c) => {
+      const p = await freshRoundPhoto();
+      return c.delete(`/api/styles/${p.styleId}/fit/rounds/${p.roundId}/photos/${p.photoId}`);
     },
   },
   'POST /api/styles/[id]/fit/rounds/[roundId]/comments': {

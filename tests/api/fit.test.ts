@@ -1,5 +1,7 @@
-import { describe, expect, it } from 'vitest';
-import { as, newStyleBody, styleByCode } from './helpers';
+import { describe, expect, inject, it } from 'vitest';
+import { PNG } from 'pngjs';
+import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
+import { as, baseUrl, newStyleBody, styleByCode, type Client } from './helpers';
 
 /** The body of a spec save from a GET answer, with changes. */
 function specBody(fit: any, over: Record<string, unknown> = {}) {
@@ -289,5 +291,175 @@ describe('fit API: roles and isolation', () => {
     expect((await other.patch(`/api/styles/${s.id}/fit/rounds/${round.id}/corrections/${round.corrections[0].id}`, { version: fit.version, decision: 'accept' })).status).toBe(404);
     const after = (await (await as('designer')).get(`/api/styles/${s.id}/fit`)).json.fit;
     expect(after.version).toBe(fit.version);
+  });
+});
+
+// ---------------------------------------------------------------------------------------------
+// Round photos and deleting a round
+
+function pngBytes(w = 6, h = 4, grey = 180): Buffer {
+  const p = new PNG({ width: w, height: h });
+  p.data.fill(grey);
+  return PNG.sync.write(p);
+}
+
+async function postPhoto(c: Client, styleId: string, roundId: string, bytes: Uint8Array | null, name = 'front.png', type = 'image/png') {
+  const form = new FormData();
+  if (bytes) form.set('photo', new Blob([Buffer.from(bytes)], { type }), name);
+  const res = await fetch(`${baseUrl()}/api/styles/${styleId}/fit/rounds/${roundId}/photos`, { method: 'POST', body: form, headers: { cookie: c.cookie } });
+  const text = await res.text();
+  return { status: res.status, json: text ? JSON.parse(text) : null };
+}
+
+async function download(c: Client, url: string) {
+  const res = await fetch(baseUrl() + url, { headers: { cookie: c.cookie } });
+  return { status: res.status, type: res.headers.get('content-type'), bytes: Buffer.from(await res.arrayBuffer()) };
+}
+
+/** Object keys of a style's round photos in the S3 fake. */
+async function photoObjects(styleId: string): Promise<string[]> {
+  const s3 = new S3Client({
+    region: 'us-east-1', endpoint: inject('s3Endpoint'), forcePathStyle: true, credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' },
+  });
+  const out = await s3.send(new ListObjectsV2Command({ Bucket: inject('s3Bucket') }));
+  return (out.Contents ?? []).map((o) => o.Key!).filter((k) => k.includes(`/${styleId}/sample-round-photo/`));
+}
+
+/** A fresh style shared with the demo mill, with one round recorded. */
+async function sharedRound() {
+  const { designer, style } = await freshFit();
+  const orgs = (await (await as('admin')).get('/api/organisations')).json.organisations as { id: string; name: string }[];
+  const quellmoor = orgs.find((o) => o.name === 'Quellmoor Knitworks')!.id;
+  expect((await designer.post(`/api/styles/${style.id}/shares`, { organisationId: quellmoor })).status).toBe(201);
+  const now = (await designer.get(`/api/styles/${style.id}/fit`)).json.fit;
+  const created = await designer.post(`/api/styles/${style.id}/fit/rounds`, { version: now.version, kind: 'fit', size: 'M', measurements: { 'chest-half': 31.2 } });
+  expect(created.status).toBe(201);
+  return { designer, styleId: style.id as string, roundId: created.json.round.id as string, version: created.json.fit.version as number };
+}
+
+describe('fit API: round photos', () => {
+  it('attaches photos to a round: listed on it, read by the studio and the mill it is shared with, 404 for the rest', async () => {
+    const { designer, styleId, roundId, version } = await sharedRound();
+    const first = await postPhoto(designer, styleId, roundId, pngBytes(), 'front on form.png');
+    expect(first.status).toBe(201);
+    expect(first.json.photo).toMatchObject({ name: 'front on form.png', contentType: 'image/png', widthPx: 6, heightPx: 4, uploadedBy: 'Tamsin Orlo' });
+    expect(first.json.photo.url).toBe(`/api/files/${first.json.photo.fileId}`);
+    // A photo carries no version but raises it, so a round deletion on an older view is refused.
+    expect(first.json.fit.version).toBe(version + 1);
+    const second = await postPhoto(designer, styleId, roundId, pngBytes(4, 8, 90), 'side seam.png');
+    expect(second.status).toBe(201);
+    const round = (await designer.get(`/api/styles/${styleId}/fit`)).json.fit.rounds[0];
+    expect(round.photos.map((p: any) => p.name)).toEqual(['front on form.png', 'side seam.png']);
+
+    const got = await download(designer, first.json.photo.url);
+    expect(got.status).toBe(200);
+    expect(got.type).toBe('image/png');
+    expect(got.bytes.equals(pngBytes())).toBe(true);
+    expect((await download(await as('colour-lead'), first.json.photo.url)).status).toBe(200);
+    // The mill reads the rounds of a style shared with it, photos included.
+    const mill = await as('mill');
+    expect((await mill.get(`/api/styles/${styleId}/fit`)).json.fit.rounds[0].photos).toHaveLength(2);
+    expect((await download(mill, first.json.photo.url)).status).toBe(200);
+    // Not shared with the client; another studio sees nothing.
+    expect((await download(await as('client'), first.json.photo.url)).status).toBe(404);
+    expect((await download(await as('otherStudioAdmin'), first.json.photo.url)).status).toBe(404);
+    // Round photos are not style attachments.
+    expect((await designer.get(`/api/styles/${styleId}/files`)).json.files).toEqual([]);
+
+    const hist = (await designer.get(`/api/styles/${styleId}/history`)).json.entries;
+    expect(hist[0]).toMatchObject({ action: 'fit.round.photo.add', details: { roundNo: 1, name: 'side seam.png', widthPx: 4, heightPx: 8 } });
+    expect(await photoObjects(styleId)).toHaveLength(2);
+  });
+
+  it('refuses what is not a photo whatever its name (415), a missing file (400) and an unknown round (404); nothing is stored', async () => {
+    const { designer, styleId, roundId, version } = await sharedRound();
+    const text = await postPhoto(designer, styleId, roundId, Buffer.from('measured flat, relaxed 24 h'), 'sample.jpg', 'image/jpeg');
+    expect(text.status).toBe(415);
+    expect(text.json.fieldErrors.photo[0]).toMatch(/its content was checked, not its name/);
+    const pdf = await postPhoto(designer, styleId, roundId, Buffer.from('%PDF-1.4\n1 0 obj <<>> endobj\ntrailer <<>>\n%%EOF\n'), 'front.png');
+    expect(pdf.status).toBe(415);
+    const svg = await postPhoto(designer, styleId, roundId, Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><rect width="2" height="2"/></svg>'), 'back.webp', 'image/webp');
+    expect(svg.status).toBe(415);
+    const cut = pngBytes(40, 40);
+    expect((await postPhoto(designer, styleId, roundId, cut.subarray(0, cut.length - 20), 'cut.png')).status).toBe(400);
+    const none = await postPhoto(designer, styleId, roundId, null);
+    expect(none.status).toBe(400);
+    expect(none.json.fieldErrors.photo).toEqual(['Choose a file to upload']);
+    expect((await postPhoto(designer, styleId, crypto.randomUUID(), pngBytes())).status).toBe(404);
+    const fit = (await designer.get(`/api/styles/${styleId}/fit`)).json.fit;
+    expect(fit.rounds[0].photos).toEqual([]);
+    expect(fit.version).toBe(version);
+    expect(await photoObjects(styleId)).toEqual([]);
+  });
+
+  it('removes a photo: gone from the round, from the store and from downloads, with a history entry', async () => {
+    const { designer, styleId, roundId } = await sharedRound();
+    const { photo } = (await postPhoto(designer, styleId, roundId, pngBytes(), 'twist.png')).json;
+    const res = await designer.delete(`/api/styles/${styleId}/fit/rounds/${roundId}/photos/${photo.id}`);
+    expect(res.status).toBe(200);
+    expect(res.json.fit.rounds[0].photos).toEqual([]);
+    expect((await download(designer, photo.url)).status).toBe(404);
+    expect(await photoObjects(styleId)).toEqual([]);
+    expect((await designer.delete(`/api/styles/${styleId}/fit/rounds/${roundId}/photos/${photo.id}`)).status).toBe(404);
+    const hist = (await designer.get(`/api/styles/${styleId}/history`)).json.entries;
+    expect(hist[0]).toMatchObject({ action: 'fit.round.photo.remove', details: { roundNo: 1, name: 'twist.png' } });
+  });
+
+  it('only those who record rounds attach or remove photos; another studio gets 404 and changes nothing', async () => {
+    const { designer, styleId, roundId } = await sharedRound();
+    const { photo } = (await postPhoto(designer, styleId, roundId, pngBytes())).json;
+    for (const who of ['colour-lead', 'mill'] as const) {
+      const c = await as(who);
+      expect((await postPhoto(c, styleId, roundId, pngBytes())).status).toBe(403);
+      expect((await c.delete(`/api/styles/${styleId}/fit/rounds/${roundId}/photos/${photo.id}`)).status).toBe(403);
+    }
+    const other = await as('otherStudioAdmin');
+    expect((await postPhoto(other, styleId, roundId, pngBytes())).status).toBe(404);
+    expect((await other.delete(`/api/styles/${styleId}/fit/rounds/${roundId}/photos/${photo.id}`)).status).toBe(404);
+    expect((await designer.get(`/api/styles/${styleId}/fit`)).json.fit.rounds[0].photos).toHaveLength(1);
+  });
+});
+
+describe('fit API: deleting a round', () => {
+  it('deletes a round with its photos, comments and corrections; the accepted correction stays in the spec; recorded in history', async () => {
+    const { designer, style, fit } = await freshFit();
+    const saved = (await designer.put(`/api/styles/${style.id}/fit`, specBody(fit, { points: withPoint(fit, 'chest-half', { baseCm: 31, gradeCm: 2 }) }))).json.fit;
+    const created = (await designer.post(`/api/styles/${style.id}/fit/rounds`, { version: saved.version, kind: 'proto', size: 'M', measurements: { 'chest-half': 32.4, 'waist-half': 27 } })).json;
+    const roundId = created.round.id;
+    const { photo, fit: withPhoto } = (await postPhoto(designer, style.id, roundId, pngBytes(), 'front.png')).json;
+    let doc = (await designer.post(`/api/styles/${style.id}/fit/rounds/${roundId}/comments`, { version: withPhoto.version, body: 'Wide at the chest.' })).json.fit;
+    doc = (await designer.post(`/api/styles/${style.id}/fit/rounds/${roundId}/corrections`, { version: doc.version, point: 'chest-half', size: 'M', toCm: 30.5, scope: 'point' })).json.fit;
+    doc = (await designer.patch(`/api/styles/${style.id}/fit/rounds/${roundId}/corrections/${doc.rounds[0].corrections[0].id}`, { version: doc.version, decision: 'accept' })).json.fit;
+    doc = (await designer.post(`/api/styles/${style.id}/fit/rounds/${roundId}/corrections`, { version: doc.version, point: 'waist-half', size: 'M', toCm: 26.5, scope: 'size' })).json.fit;
+    expect(doc.spec.points.find((p: any) => p.point === 'chest-half').baseCm).toBe(30.5);
+    const path = `/api/styles/${style.id}/fit/rounds/${roundId}`;
+
+    const stale = await designer.delete(`${path}?version=${doc.version - 1}`);
+    expect(stale.status).toBe(409);
+    expect(stale.json.currentVersion).toBe(doc.version);
+    expect((await designer.get(`/api/styles/${style.id}/fit`)).json.fit.rounds).toHaveLength(1);
+    const noVersion = await designer.delete(path);
+    expect(noVersion.status).toBe(400);
+    expect(noVersion.json.fieldErrors.version).toEqual(['The version you edited is required']);
+    expect((await (await as('otherStudioAdmin')).delete(`${path}?version=${doc.version}`)).status).toBe(404);
+    expect((await (await as('colour-lead')).delete(`${path}?version=${doc.version}`)).status).toBe(403);
+
+    const res = await designer.delete(`${path}?version=${doc.version}`);
+    expect(res.status).toBe(200);
+    expect(res.json.fit.version).toBe(doc.version + 1);
+    expect(res.json.fit.rounds).toEqual([]);
+    // The spec keeps the change the accepted correction made.
+    expect(res.json.fit.spec.points.find((p: any) => p.point === 'chest-half').baseCm).toBe(30.5);
+    expect((await download(designer, photo.url)).status).toBe(404);
+    expect(await photoObjects(style.id)).toEqual([]);
+    expect((await designer.delete(`${path}?version=${res.json.fit.version}`)).status).toBe(404);
+
+    const hist = (await designer.get(`/api/styles/${style.id}/history`)).json.entries;
+    expect(hist[0]).toMatchObject({
+      action: 'fit.round.delete',
+      details: { roundNo: 1, kind: 'proto', size: 'M', measured: 2, comments: 1, photos: 1, corrections: { accepted: 1, proposed: 1, rejected: 0 } },
+    });
+    // The correction's own entry stays in the history beside it.
+    expect(hist.some((e: any) => e.action === 'fit.correction.accept' && e.details.point === 'chest-half')).toBe(true);
   });
 });

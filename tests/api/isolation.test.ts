@@ -67,7 +67,7 @@ function idFor(template: string, param: string): string | null {
   }
   const byParam: Record<string, string | undefined> = {
     colourwayId: ids.colourway, labDipId: ids.labDip, roundId: ids.round, correctionId: ids.correction,
-    trimId: ids.trim, organisationId: ids.client, refId: ids.reference,
+    trimId: ids.trim, organisationId: ids.client, refId: ids.reference, photoId: ids.roundPhoto,
   };
   return byParam[param] ?? null;
 }
@@ -159,6 +159,12 @@ beforeAll(async () => {
   ids.colourway = (await one('colourways', { style_id: style.id }))!;
   ids.labDip = (await one('lab_dips', { style_id: style.id }))!;
   ids.round = (await one('sample_rounds', { style_id: style.id }))!;
+  // A photo on the shared style's round (the demo data has none: its images would live in the store).
+  const photoForm = new FormData();
+  photoForm.set('photo', new Blob([tinyPng], { type: 'image/png' }), 'round.png');
+  const photoUp = await fetch(`${baseUrl()}/api/styles/${style.id}/fit/rounds/${ids.round}/photos`, { method: 'POST', body: photoForm, headers: { cookie: designer.cookie } });
+  expect(photoUp.status).toBe(201);
+  ids.roundPhoto = ((await photoUp.json()) as { photo: { id: string } }).photo.id;
   ids.trim = (await one('trims', { style_id: style.id }))!;
   // Objects the demo data may not hold: a stand-in id (the owner check then lists the route as not exercised).
   const standIn = '00000000-0000-4000-8000-000000000000';

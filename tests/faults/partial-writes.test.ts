@@ -1,8 +1,8 @@
 /**
  * Uploads and exports that fail half-way leave no partial record: no `files` row, no history entry,
- * no stored object, no changed test knit. The object store is failed through the fault switch in
- * front of the S3 fake (refused, cut off mid-body, or held while the database goes away), the
- * database through the fault project's own PostgreSQL.
+ * no stored object, no changed test knit or sample round. The object store is failed through the
+ * fault switch in front of the S3 fake (refused, cut off mid-body, or held while the database goes
+ * away), the database through the fault project's own PostgreSQL.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { as, baseUrl, newStyleBody, type Client } from '../api/helpers';
@@ -161,6 +161,29 @@ describe('a write that fails half-way leaves nothing behind', () => {
     const filesAfter = await withDb(async (knex) => Number((await knex('files').where({ style_id: style.id }).count<{ count: string }[]>('* as count'))[0]!.count));
     expect(filesAfter).toBe(filesBefore);
     expect(await storedKeys(`${studioId}/${style.id}/`)).toEqual([]);
+  });
+
+  it('a sample-round photo that cannot be stored leaves the round, the style version and the history as they were', { timeout: 60_000 }, async () => {
+    const style = (await designer.get(`/api/styles/${styleId}`)).json.style;
+    const round = (await designer.post(`/api/styles/${styleId}/fit/rounds`, { version: style.version, kind: 'proto', size: 'M', measurements: { 'chest-half': 31 } })).json;
+    expect(round.round).toBeDefined();
+    const before = await traces();
+    await s3Mode('refuse');
+    let res: { status: number; json: any };
+    try {
+      const form = new FormData();
+      form.set('photo', new Blob([tinyPng], { type: 'image/png' }), 'front.png');
+      const r = await fetch(`${baseUrl()}/api/styles/${styleId}/fit/rounds/${round.round.id}/photos`, { method: 'POST', body: form, headers: { cookie: designer.cookie } });
+      res = { status: r.status, json: await r.json() };
+    } finally {
+      await s3Mode('pass');
+    }
+    expect(res.status).toBe(503);
+    expect(res.json.error).toMatch(/storage is unavailable/i);
+    expect(await traces()).toEqual(before);
+    const fit = (await designer.get(`/api/styles/${styleId}/fit`)).json.fit;
+    expect(fit.version).toBe(round.fit.version);
+    expect(fit.rounds[0].photos).toEqual([]);
   });
 
   it('exports while the database is down answer 503 in JSON (they write nothing)', { timeout: 60_000 }, async () => {
