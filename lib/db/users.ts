@@ -81,6 +81,23 @@ export async function findUserBySession(sessionId: string, q: Db = db()): Promis
   return user;
 }
 
+/** For the password change only: the account's current hash. */
+export async function findPasswordHash(id: string, q: Db = db()): Promise<string | null> {
+  const row = (await q('users').where({ id }).first('password_hash')) as { password_hash: string } | undefined;
+  return row?.password_hash ?? null;
+}
+
+/**
+ * Sets a new password hash and ends every session of the account except `keepSessionId` (the one
+ * that changed it), in one transaction. Returns how many sessions were ended.
+ */
+export async function changePassword(id: string, passwordHash: string, keepSessionId: string, q: Db = db()): Promise<number> {
+  return q.transaction(async (trx) => {
+    await trx('users').where({ id }).update({ password_hash: passwordHash, updated_at: trx.fn.now() });
+    return deleteUserSessions(id, { keepId: keepSessionId }, trx);
+  });
+}
+
 /** For sign-in only: the account with its hash. */
 export async function findUserForSignIn(email: string, q: Db = db()) {
   const row = (await baseQuery(q).select('u.password_hash').where('u.email', email).first()) as UserRow | undefined;
