@@ -301,7 +301,10 @@ export const matrix: Record<string, Entry> = {
       if (made.status !== 201) throw new Error(`throwaway ${caller}: ${made.status} ${made.text}`);
       const own = new Client(`password ${caller}`);
       await own.post('/api/auth/sign-in', { email, password: 'throwaway-123' });
-      return own.post('/api/auth/password', { currentPassword: 'throwaway-123', newPassword: 'throwaway-456' });
+      const res = await own.post('/api/auth/password', { currentPassword: 'throwaway-123', newPassword: 'throwaway-456' });
+      // Deactivated again at once: a second active admin would let auth.test.ts demote the demo admin.
+      await (await as('admin')).patch(`/api/members/${made.json.member.id}`, { active: false });
+      return res;
     },
   },
   'GET /api/styles': { expect: everyone(200), run: (c) => c.get('/api/styles') },

@@ -19,19 +19,21 @@ describe('the account page', () => {
 
     await page.getByRole('link', { name: /Account Tester/ }).click();
     await page.waitForURL(/\/account$/);
+    // Within the form: the page also has the router's announcer, which is an alert too.
+    const form = page.locator('form');
     await page.getByLabel('Current password').fill('not-my-password');
     await page.getByLabel('New password', { exact: true }).fill('browser-pass-2');
     await page.getByLabel('New password again').fill('browser-pass-3');
     await page.getByRole('button', { name: 'Change password' }).click();
-    await expect.poll(() => page.getByRole('alert').allTextContents()).toEqual(['The two new passwords differ']);
+    await expect.poll(() => form.getByRole('alert').allTextContents()).toEqual(['The two new passwords differ']);
 
     await page.getByLabel('New password again').fill('browser-pass-2');
     await page.getByRole('button', { name: 'Change password' }).click();
-    await expect.poll(() => page.getByRole('alert').allTextContents()).toEqual(['This is not your current password']);
+    await expect.poll(() => form.getByRole('alert').allTextContents()).toEqual(['This is not your current password']);
 
     await page.getByLabel('Current password').fill('browser-pass-1');
     await page.getByRole('button', { name: 'Change password' }).click();
-    await expect.poll(() => page.getByRole('status').allTextContents()).toEqual([expect.stringMatching(/Password changed\. 1 other session was signed out/)]);
+    await expect.poll(() => form.getByRole('status').allTextContents()).toEqual([expect.stringMatching(/Password changed\. 1 other session was signed out/)]);
 
     // This browser stays signed in; the other one is sent to sign-in on its next page.
     await page.goto(`${baseUrl()}/styles`);
