@@ -1,4 +1,5 @@
 import type { NextConfig } from 'next';
+import { apiContentSecurityPolicy, commonSecurityHeaders } from './lib/api/security-headers';
 
 const nextConfig: NextConfig = {
   // Knex loads database drivers dynamically; keep it (and pg) out of the server bundle.
@@ -9,6 +10,13 @@ const nextConfig: NextConfig = {
   typedRoutes: false,
   // The type check runs once for the whole repo (`tsc --noEmit` in the test command), not again per build.
   typescript: { ignoreBuildErrors: true },
+  // Pages get their Content-Security-Policy (with a nonce per request) from proxy.ts.
+  async headers() {
+    return [
+      { source: '/:path*', headers: commonSecurityHeaders },
+      { source: '/api/:path*', headers: [{ key: 'Content-Security-Policy', value: apiContentSecurityPolicy }] },
+    ];
+  },
 };
 
 export default nextConfig;

@@ -1,4 +1,9 @@
-export default function NotFound() {
+import { connection } from 'next/server';
+
+export default async function NotFound() {
+  // Rendered per request, not at build time: the page's scripts need the nonce of the request's
+  // Content-Security-Policy (proxy.ts), which a page built ahead of time cannot carry.
+  await connection();
   return (
     <main className="grid min-h-[60vh] place-items-center">
       <div className="text-center">

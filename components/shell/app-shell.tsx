@@ -23,12 +23,12 @@ export function AppShell({ user, children }: { user: SessionUser; children: Reac
             {!outside && env().devPages ? <NavLink href="/dev/mail">Mail (dev)</NavLink> : null}
           </nav>
           <div className="ml-auto flex items-center gap-3 text-sm">
-            <div className="text-right leading-tight">
+            <Link href="/account" title="Your account and password" className="rounded-md px-2 py-1 text-right leading-tight hover:bg-paper">
               <div className="font-medium">{user.name}</div>
               <div className="text-xs text-ink-faint">
                 {roleLabels[user.role]} · {user.organisationName ?? user.studioName}
               </div>
-            </div>
+            </Link>
             <SignOutButton />
           </div>
         </div>

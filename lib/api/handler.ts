@@ -2,6 +2,7 @@ import 'server-only';
 import { NextResponse, type NextRequest } from 'next/server';
 import { ZodError, type ZodType } from 'zod';
 import { HttpError, isDataException, isDatabaseUnavailable } from './errors';
+import { isCrossSiteWrite } from './same-origin';
 
 type Ctx<P> = { params: Promise<P> };
 
@@ -21,15 +22,17 @@ export function fieldErrors(err: ZodError): Record<string, string[]> {
 }
 
 /**
- * Wraps a route handler: maps validation errors to 400 with field errors, HttpErrors to their
- * status, an unreachable database to 503, a value the database refuses (SQLSTATE class 22) to 400,
- * and anything else to a plain 500 without internals.
+ * Wraps a route handler: refuses a state-changing request sent from another site with 403 before
+ * the handler runs (see `isCrossSiteWrite`), maps validation errors to 400 with field errors,
+ * HttpErrors to their status, an unreachable database to 503, a value the database refuses
+ * (SQLSTATE class 22) to 400, and anything else to a plain 500 without internals.
  */
 export function route<P = Record<string, never>>(
   fn: (req: NextRequest, params: P) => Promise<Response>,
 ) {
   return async (req: NextRequest, ctx: Ctx<P>): Promise<Response> => {
     try {
+      if (isCrossSiteWrite(req)) return jsonError(403, 'This request came from a page of another site and was refused.');
       const params = ctx?.params ? await ctx.params : ({} as P);
       return await fn(req, params);
     } catch (err) {

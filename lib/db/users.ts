@@ -1,4 +1,5 @@
 import { db, type Db } from './knex';
+import { deleteUserSessions } from './sessions';
 import type { Role } from '@/lib/auth/roles';
 
 export interface SessionUser {
@@ -63,6 +64,40 @@ export async function findActiveUserById(id: string, q: Db = db()): Promise<Sess
   return user;
 }
 
+/**
+ * The account signed in with a session, in one query: the session row must exist and not have run
+ * out, and the account must be active. Read on every request, so sign-out, a password change or a
+ * deactivation (each deletes rows, or the account's `active`) applies at once.
+ */
+export async function findUserBySession(sessionId: string, q: Db = db()): Promise<SessionUser | null> {
+  const row = (await baseQuery(q)
+    .join('sessions as se', 'se.user_id', 'u.id')
+    .where('se.id', sessionId)
+    .andWhere('se.expires_at', '>', q.fn.now())
+    .andWhere('u.active', true)
+    .first()) as UserRow | undefined;
+  if (!row) return null;
+  const { active: _a, createdAt: _c, ...user } = toMember(row);
+  return user;
+}
+
+/** For the password change only: the account's current hash. */
+export async function findPasswordHash(id: string, q: Db = db()): Promise<string | null> {
+  const row = (await q('users').where({ id }).first('password_hash')) as { password_hash: string } | undefined;
+  return row?.password_hash ?? null;
+}
+
+/**
+ * Sets a new password hash and ends every session of the account except `keepSessionId` (the one
+ * that changed it), in one transaction. Returns how many sessions were ended.
+ */
+export async function changePassword(id: string, passwordHash: string, keepSessionId: string, q: Db = db()): Promise<number> {
+  return q.transaction(async (trx) => {
+    await trx('users').where({ id }).update({ password_hash: passwordHash, updated_at: trx.fn.now() });
+    return deleteUserSessions(id, { keepId: keepSessionId }, trx);
+  });
+}
+
 /** For sign-in only: the account with its hash. */
 export async function findUserForSignIn(email: string, q: Db = db()) {
   const row = (await baseQuery(q).select('u.password_hash').where('u.email', email).first()) as UserRow | undefined;
@@ -108,7 +143,12 @@ export async function updateMember(
   if (patch.active !== undefined) values.active = patch.active;
   if (patch.name !== undefined) values.name = patch.name;
   if (patch.organisationId !== undefined) values.organisation_id = patch.organisationId;
-  return q('users').where({ studio_id: studioId, id }).update(values);
+  return q.transaction(async (trx) => {
+    const updated = await trx('users').where({ studio_id: studioId, id }).update(values);
+    // A deactivated account is signed out everywhere; reactivating it does not bring old sessions back.
+    if (updated && patch.active === false) await deleteUserSessions(id, {}, trx);
+    return updated;
+  });
 }
 
 export async function countActiveAdmins(studioId: string, q: Db = db()): Promise<number> {

@@ -305,6 +305,25 @@ export const matrix: Record<string, Entry> = {
     },
   },
   'GET /api/auth/me': { expect: everyone(200), run: (c) => c.get('/api/auth/me') },
+  'POST /api/auth/password': {
+    // Everyone signed in may change their own password. A throwaway account per role, so the shared
+    // clients (and the demo password other tests sign in with) are left alone.
+    expect: everyone(200),
+    run: async (c, _ctx, caller) => {
+      if (caller === 'anon') return c.post('/api/auth/password', { currentPassword: 'x', newPassword: 'throwaway-456' });
+      const { quellmoor, varrow } = await millAndClient();
+      const email = `pw-${caller}-${Date.now().toString(36)}@hollowfell.example`;
+      const organisationId = caller === 'mill' ? quellmoor : caller === 'client' ? varrow : null;
+      const made = await (await as('admin')).post('/api/members', { email, name: `Password ${caller}`, role: caller, password: 'throwaway-123', organisationId });
+      if (made.status !== 201) throw new Error(`throwaway ${caller}: ${made.status} ${made.text}`);
+      const own = new Client(`password ${caller}`);
+      await own.post('/api/auth/sign-in', { email, password: 'throwaway-123' });
+      const res = await own.post('/api/auth/password', { currentPassword: 'throwaway-123', newPassword: 'throwaway-456' });
+      // Deactivated again at once: a second active admin would let auth.test.ts demote the demo admin.
+      await (await as('admin')).patch(`/api/members/${made.json.member.id}`, { active: false });
+      return res;
+    },
+  },
   'GET /api/styles': { expect: everyone(200), run: (c) => c.get('/api/styles') },
   'POST /api/styles': { expect: editors(201), run: (c) => c.post('/api/styles', newStyleBody()) },
   'GET /api/styles/[id]': { expect: everyone(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}`) },

@@ -174,6 +174,8 @@ beforeAll(async () => {
   knex = knexFactory({ client: 'pg', connection: inject('databaseUrl'), pool: { min: 0, max: 2 } });
   const designer = await as('designer');
   styleId = (await designer.post('/api/styles', { ...newStyleBody(), name: 'Hostile input target' })).json.style.id;
+  // Every caller signs in now, not in the middle of a row count: a sign-in writes a session row.
+  for (const r of routes) await clientFor(r.key);
 });
 afterAll(async () => { await knex?.destroy(); });
 

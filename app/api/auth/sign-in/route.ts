@@ -4,7 +4,7 @@ import { route, parseBody, jsonError } from '@/lib/api/handler';
 import { signInSchema } from '@/lib/validations/auth';
 import { findUserForSignIn } from '@/lib/db/users';
 import { clearSignInFailures, recordSignInFailure, signInBlockedFor } from '@/lib/db/sign-in-attempts';
-import { getSession } from '@/lib/auth/session';
+import { startSession } from '@/lib/auth/session';
 import { clientAddress } from '@/lib/api/client-address';
 
 // A hash to compare against when the account does not exist, so timing does not reveal it.
@@ -27,8 +27,6 @@ export const POST = route(async (req) => {
     return jsonError(401, 'E-mail or password is not right.');
   }
   await clearSignInFailures(email);
-  const session = await getSession();
-  session.userId = user.id;
-  await session.save();
+  await startSession(user.id, req.headers.get('user-agent'));
   return NextResponse.json({ user: { id: user.id, name: user.name, email: user.email, role: user.role, studioName: user.studioName } });
 });
