@@ -244,18 +244,23 @@ describe('library: studio isolation', () => {
 });
 
 describe('a style textures and trims', () => {
-  it('the mill reads the textures of a style released to it, with their yarns; not of other styles', async () => {
+  it('the mill reads the textures of a style released to it, with their yarns, from the release; not the working copy, not of other styles', async () => {
     const mill = await as('mill');
     const ridge = await styleByCode('HF27-101');
-    const res = await mill.get(`/api/styles/${ridge.id}/textures`);
+    const releases = (await mill.get(`/api/styles/${ridge.id}/releases`)).json.releases as { id: string; revision: number }[];
+    const seeded = releases.reduce((a, b) => (a.revision <= b.revision ? a : b));
+    const res = await mill.get(`/api/releases/${seeded.id}`);
     expect(res.status).toBe(200);
-    expect(res.json.textures.map((t: { name: string }) => t.name)).toEqual([
+    const snapshot = res.json.release.snapshot;
+    expect(snapshot.textures.map((t: { name: string }) => t.name)).toEqual([
       'Plain plated jersey', '2×1 mock rib compression', 'Eyelet ventilation mesh', 'Float jacquard colour block',
     ]);
-    const yarnIds = new Set(res.json.yarns.map((y: { id: string }) => y.id));
-    for (const t of res.json.textures) for (const f of t.feeders) expect(yarnIds.has(f.ground)).toBe(true);
+    const yarnIds = new Set(snapshot.yarns.map((y: { id: string }) => y.id));
+    for (const t of snapshot.textures) for (const f of t.feeders) expect(yarnIds.has(f.ground)).toBe(true);
+    // The working copy's list is the studio's (and the client's) to read, not the mill's.
+    expect((await mill.get(`/api/styles/${ridge.id}/textures`)).status).toBe(403);
     const updraft = await styleByCode('HF27-102');
-    expect((await mill.get(`/api/styles/${updraft.id}/textures`)).status).toBe(404);
+    expect((await mill.get(`/api/styles/${updraft.id}/releases`)).status).toBe(404);
   });
 
   it('PUT replaces the list with the style version; stale gets 409; textures must be the studio library', async () => {
