@@ -220,7 +220,11 @@ async function loadRounds(styleId: string, q: Db): Promise<SampleRound[]> {
  * with them): the spec or its defaults, the studio factor, the style's textures, the sample rounds.
  */
 export async function loadFit(user: SessionUser, styleId: string, q: Db = db()): Promise<FitDocument> {
-  const style = await visibleStyle(user, styleId, q);
+  return fitOfStyle(user, await visibleStyle(user, styleId, q), q);
+}
+
+/** `loadFit` for a style the caller has already read (and so may see). */
+export async function fitOfStyle(user: SessionUser, style: Style, q: Db = db()): Promise<FitDocument> {
   const [stored, textures, studioFactor, rounds] = await Promise.all([
     loadSpec(style.id, style.sizes.labels, q),
     fitTextures(user, style.id, q),

@@ -1,12 +1,11 @@
 import type { Knex } from 'knex';
 import { db, type Db } from './knex';
 import type { SessionUser } from './users';
-import { findStyle } from './styles';
-import { loadBodyMap } from './body-map';
-import { listStyleTextures, findTexture, yarnsOfTextures, type LibraryTexture } from './textures';
+import { findStyle, type Style } from './styles';
+import type { LibraryTexture } from './textures';
 import type { LibraryYarn } from './yarns';
-import { listTrims } from './trims';
-import { computeFitSheet, loadFit } from './fit';
+import { computeFitSheet, fitOfStyle } from './fit';
+import { loadStyleParts } from './style-parts';
 import { listColourways } from './colourways';
 import { notFound } from '@/lib/api/errors';
 import { resolveValues } from '@/lib/fit/grading';
@@ -33,8 +32,8 @@ function toPackYarn(y: LibraryYarn): PackYarn {
 }
 
 /** The size spec with needles per size, from the Fit section, when a spec is saved. */
-async function packFit(user: SessionUser, styleId: string, q: Db): Promise<PackFit | null> {
-  const doc = await loadFit(user, styleId, q);
+async function packFit(user: SessionUser, style: Style, q: Db): Promise<PackFit | null> {
+  const doc = await fitOfStyle(user, style, q);
   if (!doc.saved) return null;
   const sheet = computeFitSheet(doc);
   const values = resolveValues(doc.spec.points, doc.sizes, doc.spec.baseSize);
@@ -95,47 +94,43 @@ async function packColour(user: SessionUser, styleId: string, q: Db): Promise<Pa
 export async function buildPackData(user: SessionUser, styleId: string, q: Knex = db()): Promise<PackData> {
   const style = await findStyle(user, styleId, q);
   if (!style) throw notFound('Style not found.');
-  const [map, styleTextures, trims] = await Promise.all([
-    loadBodyMap(user, styleId, q),
-    listStyleTextures(user, styleId, q),
-    listTrims(user, styleId, q),
-  ]);
-  const panels = map?.panels ?? [];
-  const textures = [...styleTextures.textures];
-  const known = new Set(textures.map((t) => t.id));
-  for (const id of new Set(panels.flatMap((p) => [p.baseTextureId, ...p.zones.map((z) => z.textureId)]))) {
-    if (!id || known.has(id)) continue;
-    const t = await findTexture(user, id, q);
-    if (t) {
-      textures.push(t);
-      known.add(id);
-    }
-  }
-  const yarns = await yarnsOfTextures(user.studioId, textures, q);
-  const [fit, colour] = await Promise.all([
-    packFit(user, styleId, q).catch((err) => {
+  return (await packDataOf(user, style, q)).data;
+}
+
+/**
+ * `buildPackData` for a style the caller has already read. `complete` is false when the fit or the
+ * colour part could not be read just now and was left out (logged), so the data is not to be kept.
+ */
+export async function packDataOf(user: SessionUser, style: Style, q: Knex = db()): Promise<{ data: PackData; complete: boolean }> {
+  let complete = true;
+  const [parts, fit, colour] = await Promise.all([
+    loadStyleParts(user, style, q),
+    packFit(user, style, q).catch((err) => {
       console.error('Mill pack: the size spec could not be read', err);
+      complete = false;
       return null;
     }),
-    packColour(user, styleId, q).catch((err) => {
+    packColour(user, style.id, q).catch((err) => {
       console.error('Mill pack: the colourway could not be read', err);
+      complete = false;
       return null;
     }),
   ]);
-  return {
+  const data: PackData = {
     format: packFormat,
     style: {
       id: style.id, code: style.code, name: style.name, season: style.season, clientName: style.clientName,
       garmentType: style.garmentType, construction: style.construction, machine: style.machine, sizes: style.sizes,
       revision: style.revision, status: style.status,
     },
-    panels,
-    textures: textures.map(toPackTexture),
-    yarns: yarns.map(toPackYarn),
-    trims: trims.map((t) => ({ id: t.id, panelKind: t.panelKind, name: t.name, kind: t.kind, method: t.method, tempC: t.tempC, box: t.box })),
+    panels: parts.map.panels,
+    textures: parts.textures.map(toPackTexture),
+    yarns: parts.yarns.map(toPackYarn),
+    trims: parts.trims.map((t) => ({ id: t.id, panelKind: t.panelKind, name: t.name, kind: t.kind, method: t.method, tempC: t.tempC, box: t.box })),
     colour,
     fit,
     capturedAt: new Date().toISOString(),
     release: null,
   };
+  return { data, complete };
 }

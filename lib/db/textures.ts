@@ -123,6 +123,28 @@ export async function findTexture(user: SessionUser, id: string, q: Db = db()): 
   return row ? toTexture(row) : null;
 }
 
+/** Textures of the studio by id (archived ones too, so old references still read), in the order of `ids`; unknown ids are left out. */
+export async function texturesByIds(studioId: string, ids: readonly string[], q: Db = db()): Promise<LibraryTexture[]> {
+  const unique = [...new Set(ids)];
+  if (unique.length === 0) return [];
+  const rows = (await q('textures').where({ studio_id: studioId }).whereIn('id', unique)) as TextureRow[];
+  const byId = new Map(rows.map((r) => [r.id, r]));
+  return unique.flatMap((id) => {
+    const r = byId.get(id);
+    return r ? [toTexture(r)] : [];
+  });
+}
+
+/** The textures on a style's list, in its order (the caller has checked that the style is visible). */
+export async function texturesOfStyleList(studioId: string, styleId: string, q: Db = db()): Promise<LibraryTexture[]> {
+  const rows = (await q('style_textures as stx')
+    .join('textures as t', 't.id', 'stx.texture_id')
+    .where({ 'stx.style_id': styleId, 't.studio_id': studioId })
+    .orderBy([{ column: 'stx.position' }, { column: 't.name' }])
+    .select('t.*')) as TextureRow[];
+  return rows.map(toTexture);
+}
+
 /** The yarns a set of textures feeds, for computing with them. */
 export async function yarnsOfTextures(studioId: string, textures: readonly Texture[], q: Db = db()): Promise<LibraryYarn[]> {
   return yarnsByIds(studioId, textures.flatMap(textureYarnIds), q);
@@ -229,12 +251,7 @@ export interface StyleTextures {
 export async function listStyleTextures(user: SessionUser, styleId: string, q: Db = db()): Promise<StyleTextures> {
   const style = await findStyle(user, styleId, q);
   if (!style) throw notFound('Style not found.');
-  const rows = (await q('style_textures as stx')
-    .join('textures as t', 't.id', 'stx.texture_id')
-    .where({ 'stx.style_id': styleId, 't.studio_id': user.studioId })
-    .orderBy([{ column: 'stx.position' }, { column: 't.name' }])
-    .select('t.*')) as TextureRow[];
-  const textures = rows.map(toTexture);
+  const textures = await texturesOfStyleList(user.studioId, styleId, q);
   const yarns = (await yarnsOfTextures(user.studioId, textures, q)).map((y) => yarnForViewer(user, y));
   return { version: style.version, textures, yarns };
 }

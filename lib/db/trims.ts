@@ -59,6 +59,11 @@ async function visibleStyleOr404(user: SessionUser, styleId: string, q: Db) {
 /** The trims of a style the user can see, in the order they were placed. */
 export async function listTrims(user: SessionUser, styleId: string, q: Db = db()): Promise<StyleTrim[]> {
   await visibleStyleOr404(user, styleId, q);
+  return trimsOfStyle(styleId, q);
+}
+
+/** `listTrims` for a style the caller has already read (and so may see). */
+export async function trimsOfStyle(styleId: string, q: Db = db()): Promise<StyleTrim[]> {
   const rows = (await q('trims').where({ style_id: styleId }).orderBy([{ column: 'created_at' }, { column: 'id' }])) as TrimRow[];
   return rows.map(toTrim);
 }

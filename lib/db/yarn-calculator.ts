@@ -1,12 +1,12 @@
 import type { Knex } from 'knex';
 import { db } from './knex';
 import type { SessionUser } from './users';
-import { findStyle, type Style } from './styles';
-import { loadBodyMap } from './body-map';
-import { findTexture, listStyleTextures, yarnsOfTextures, type LibraryTexture } from './textures';
+import { findStyleStamped, type Style } from './styles';
+import type { LibraryTexture } from './textures';
 import { yarnForViewer, type LibraryYarn } from './yarns';
-import { listTrims } from './trims';
-import { loadFit } from './fit';
+import { fitOfStyle } from './fit';
+import { loadStyleParts } from './style-parts';
+import { DataCache } from './data-cache';
 import { HttpError, notFound } from '@/lib/api/errors';
 import { isOutsideRole } from '@/lib/auth/roles';
 import { resolveValues } from '@/lib/fit/grading';
@@ -35,9 +35,9 @@ export interface YarnCalculatorSource {
 }
 
 /** The graded size spec of the Fit section (point → size → cm), or null when none is saved. */
-async function gradedSpec(user: SessionUser, styleId: string, q: Knex): Promise<{ graded: GradedPoints | null; note?: string }> {
+async function gradedSpec(user: SessionUser, style: Style, q: Knex): Promise<{ graded: GradedPoints | null; note?: string }> {
   try {
-    const doc = await loadFit(user, styleId, q);
+    const doc = await fitOfStyle(user, style, q);
     if (!doc.saved) return { graded: null };
     return { graded: resolveValues(doc.spec.points, doc.sizes, doc.spec.baseSize) };
   } catch (err) {
@@ -47,47 +47,51 @@ async function gradedSpec(user: SessionUser, styleId: string, q: Knex): Promise<
   }
 }
 
-/**
- * Everything the yarn calculator needs for one style the user can see: the saved body map (or the
- * generated panels), the textures it uses and their yarns (prices only for studio accounts), the
- * graded size spec, and whether a trim is heat-applied. Null when the style is not visible.
- */
-export async function loadYarnCalculatorSource(user: SessionUser, styleId: string, q: Knex = db()): Promise<YarnCalculatorSource | null> {
-  const style = await findStyle(user, styleId, q);
-  if (!style) return null;
-  const [map, styleTextures, trims, spec] = await Promise.all([
-    loadBodyMap(user, styleId, q),
-    listStyleTextures(user, styleId, q),
-    listTrims(user, styleId, q),
-    gradedSpec(user, styleId, q),
-  ]);
-  const panels = map?.panels ?? [];
-  const textures = [...styleTextures.textures];
-  const known = new Set(textures.map((t) => t.id));
-  for (const id of new Set(panels.flatMap((p) => [p.baseTextureId, ...p.zones.map((z) => z.textureId)]))) {
-    if (!id || known.has(id)) continue;
-    const t = await findTexture(user, id, q);
-    if (t) {
-      textures.push(t);
-      known.add(id);
-    }
-  }
-  const yarns = (await yarnsOfTextures(user.studioId, textures, q)).map((y) => yarnForViewer(user, y));
-  const heatTransfer = trims.some((t) => isHeatApplied({ id: t.id, panelId: '', kind: t.kind, method: t.method, box: t.box }));
+/** Reads the source of a style the caller has already read. */
+async function readSource(user: SessionUser, style: Style, q: Knex): Promise<YarnCalculatorSource> {
+  const [parts, spec] = await Promise.all([loadStyleParts(user, style, q), gradedSpec(user, style, q)]);
+  const heatTransfer = parts.trims.some((t) => isHeatApplied({ id: t.id, panelId: '', kind: t.kind, method: t.method, box: t.box }));
   return {
     style: {
       id: style.id, code: style.code, name: style.name, garmentType: style.garmentType, construction: style.construction,
       version: style.version, gauge: style.machine.gauge, sizes: style.sizes.labels, baseSize: style.sizes.base,
     },
-    panels,
-    generated: map?.generated ?? true,
-    textures,
-    yarns,
+    panels: parts.map.panels,
+    generated: parts.map.generated,
+    textures: parts.textures,
+    yarns: parts.yarns.map((y) => yarnForViewer(user, y)),
     graded: spec.graded,
     heatTransfer,
     showPrices: !isOutsideRole(user.role),
     notes: spec.note ? [spec.note] : [],
   };
+}
+
+// Per process, keyed by the style's data stamp (lib/db/data-cache.ts). A source is some 10–50 KB;
+// an answer (figures and names) about as much.
+const sources = new DataCache<YarnCalculatorSource>({ maxEntries: 200, keepIf: (src) => src.notes.length === 0 });
+const answers = new DataCache<YarnCalculatorAnswer>({ maxEntries: 400 });
+
+/** Cached values are shared between requests: read inside a transaction, the data may yet be rolled back. */
+const cacheable = (q: Knex) => !(q as Knex.Transaction).isTransaction;
+
+/** The source and its cache key, for one style the user can see; null when not visible. */
+async function sourceFor(user: SessionUser, styleId: string, q: Knex): Promise<{ key: string; src: YarnCalculatorSource } | null> {
+  const found = await findStyleStamped(user, styleId, q);
+  if (!found) return null;
+  const key = `${found.style.id}|${isOutsideRole(user.role) ? 'outside' : 'studio'}|${found.stamp}`;
+  const src = cacheable(q) ? await sources.get(key, () => readSource(user, found.style, q)) : await readSource(user, found.style, q);
+  return { key, src };
+}
+
+/**
+ * Everything the yarn calculator needs for one style the user can see: the saved body map (or the
+ * generated panels), the textures it uses and their yarns (prices only for studio accounts), the
+ * graded size spec, and whether a trim is heat-applied. Null when the style is not visible. Kept
+ * per process until the style's data changes (`findStyleStamped`).
+ */
+export async function loadYarnCalculatorSource(user: SessionUser, styleId: string, q: Knex = db()): Promise<YarnCalculatorSource | null> {
+  return (await sourceFor(user, styleId, q))?.src ?? null;
 }
 
 /** Prices per kg by yarn id, for the accounts that may see them. */
@@ -125,11 +129,17 @@ export function computeYarnCalculator(src: YarnCalculatorSource, query: YarnCalc
   return figures;
 }
 
-/** The calculator as the API answers it: the figures with the names they refer to. */
-export async function yarnCalculatorFor(user: SessionUser, styleId: string, query: YarnCalculatorQuery, q: Knex = db()) {
-  const src = await loadYarnCalculatorSource(user, styleId, q);
-  if (!src) throw notFound('Style not found.');
-  const figures = computeYarnCalculator(src, query);
+/** The calculator's figures with the names of the textures and yarns they refer to. */
+export interface YarnCalculatorAnswer {
+  style: YarnCalculatorSource['style'];
+  generated: boolean;
+  notes: string[];
+  textures: { id: string; name: string }[];
+  yarns: { id: string; name: string; supplierRef: string; dtex: number; pricePerKg?: number | null }[];
+  figures: YarnCalculatorFigures;
+}
+
+function answerOf(src: YarnCalculatorSource, query: YarnCalculatorQuery): YarnCalculatorAnswer {
   return {
     style: src.style,
     generated: src.generated,
@@ -139,20 +149,36 @@ export async function yarnCalculatorFor(user: SessionUser, styleId: string, quer
       id: y.id, name: y.name, supplierRef: y.supplierRef, dtex: y.dtex,
       ...(src.showPrices ? { pricePerKg: y.pricePerKg } : {}),
     })),
-    figures,
+    figures: computeYarnCalculator(src, query),
   };
+}
+
+/** The options of a request as a key: garments by size in sorted order. */
+function queryKey(query: YarnCalculatorQuery): string {
+  return JSON.stringify([query.waste, query.method, Object.entries(query.qty).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))]);
+}
+
+/**
+ * The calculator as the API answers it: the figures for the options of a request, with the names
+ * they refer to. Kept per process like the source, per set of options.
+ */
+export async function yarnCalculatorFor(user: SessionUser, styleId: string, query: YarnCalculatorQuery, q: Knex = db()): Promise<YarnCalculatorAnswer> {
+  const found = await sourceFor(user, styleId, q);
+  if (!found) throw notFound('Style not found.');
+  const { key, src } = found;
+  if (!cacheable(q) || src.notes.length > 0) return answerOf(src, query);
+  return answers.get(`${key}|${queryKey(query)}`, async () => answerOf(src, query));
 }
 
 /** The run's order as CSV (RFC 4180), named after the style code. */
 export async function yarnOrderCsv(user: SessionUser, styleId: string, query: YarnCalculatorQuery, q: Knex = db()): Promise<{ fileName: string; body: string }> {
-  const src = await loadYarnCalculatorSource(user, styleId, q);
-  if (!src) throw notFound('Style not found.');
-  const figures = computeYarnCalculator(src, query);
+  const { style, yarns, figures } = await yarnCalculatorFor(user, styleId, query, q);
+  const showPrices = !isOutsideRole(user.role);
   const rows = orderTable(
     figures,
-    src.yarns.map((y) => ({ id: y.id, name: y.name, supplierRef: y.supplierRef, dtex: y.dtex, pricePerKg: src.showPrices ? y.pricePerKg : null })),
-    { withPrices: src.showPrices },
+    yarns.map((y) => ({ id: y.id, name: y.name, supplierRef: y.supplierRef, dtex: y.dtex, pricePerKg: showPrices ? (y.pricePerKg ?? null) : null })),
+    { withPrices: showPrices },
   );
-  const safeCode = src.style.code.replace(/[^A-Za-z0-9._-]+/g, '-');
+  const safeCode = style.code.replace(/[^A-Za-z0-9._-]+/g, '-');
   return { fileName: `${safeCode}-yarn-order.csv`, body: csv(rows) };
 }

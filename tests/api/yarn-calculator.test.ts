@@ -175,3 +175,103 @@ describe('knitted logos and the style texture list', () => {
     expect(back.status).toBe(200);
   });
 });
+
+describe('the kept answers follow every write', () => {
+  let seq = 0;
+  const unique = (what: string) => `${what} ${Date.now().toString(36)}-${(seq++).toString(36)}`;
+  const grossGrams = (answer: any, size = 'M') => answer.figures.sizes.find((s: { size: string }) => s.size === size).consumption.grossGrams as number;
+
+  /** A style with a texture and a yarn of its own (so editing them touches no other test), its map saved. */
+  async function ownStyle() {
+    const designer = await as('designer');
+    const yarn = (await designer.post('/api/library/yarns', {
+      name: unique('Cache test polyamide'), supplierRef: 'TST-C', count: { value: 70, unit: 'den' },
+      makeUp: { kind: 'single', fibre: 'polyamide' }, colour: { state: 'dyeable' }, pricePerKg: 8,
+    })).json.yarn;
+    const texture = (await designer.post('/api/library/textures', {
+      name: unique('Cache test jersey'), family: 'jersey', repeat: { needles: 1, courses: 1, cells: ['k'] },
+      feeders: [{ ground: yarn.id }], density: { walesPerCm: 20, coursesPerCm: 28 }, loopMm: { knit: 2.4, tuck: 1.8 },
+    })).json.texture;
+    const style = (await designer.post('/api/styles', newStyleBody())).json.style;
+    const list = (await designer.get(`/api/styles/${style.id}/textures`)).json;
+    expect((await designer.put(`/api/styles/${style.id}/textures`, { version: list.version, textureIds: [texture.id] })).status).toBe(200);
+    const map = (await designer.get(`/api/styles/${style.id}/body-map`)).json;
+    const saved = await designer.put(`/api/styles/${style.id}/body-map`, { version: map.version, panels: map.panels });
+    expect(saved.status).toBe(200);
+    return { designer, yarn, texture, style, panels: map.panels as { kind: string }[], version: saved.json.version as number };
+  }
+
+  it('the same question twice gets the same answer; a body-map save changes the next one', async () => {
+    const { designer, style, panels, version } = await ownStyle();
+    const first = await designer.get(calc(style.id, 'qty=M:10'));
+    expect(first.status).toBe(200);
+    expect(first.json.generated).toBe(false);
+    expect((await designer.get(calc(style.id, 'qty=M:10'))).json).toEqual(first.json);
+    // Without the first panel the garment takes less yarn.
+    const smaller = await designer.put(`/api/styles/${style.id}/body-map`, { version, panels: panels.slice(1) });
+    expect(smaller.status).toBe(200);
+    const after = (await designer.get(calc(style.id, 'qty=M:10'))).json;
+    expect(after.style.version).toBe(smaller.json.version);
+    expect(grossGrams(after)).toBeLessThan(grossGrams(first.json));
+    // The CSV is made from the same answer and follows too.
+    const csvAfter = await designer.get(orderCsv(style.id, 'qty=M:10'));
+    const kgCol = (text: string) => { const rows = text.trim().split('\r\n').map((r) => r.split(',')); return rows[1]![rows[0]!.indexOf('kg_order')]; };
+    expect(Number(kgCol(csvAfter.text))).toBeCloseTo(after.figures.order.kg, 2);
+  });
+
+  it('a yarn or texture edit in the library changes the next answer, though the style itself is unchanged', async () => {
+    const { designer, yarn, texture, style } = await ownStyle();
+    const before = (await designer.get(calc(style.id))).json;
+    // Twice the count, twice the grams (grams = metres × dtex ÷ 10 000).
+    const heavier = await designer.patch(`/api/library/yarns/${yarn.id}`, { version: yarn.version, count: { value: 140, unit: 'den' } });
+    expect(heavier.status).toBe(200);
+    const afterYarn = (await designer.get(calc(style.id))).json;
+    expect(afterYarn.style.version).toBe(before.style.version);
+    expect(grossGrams(afterYarn)).toBeCloseTo(grossGrams(before) * 2, 6);
+    // A longer loop takes more yarn per stitch.
+    const longer = await designer.patch(`/api/library/textures/${texture.id}`, { version: texture.version, loopMm: { knit: 3.6, tuck: 1.8 } });
+    expect(longer.status).toBe(200);
+    const afterTexture = (await designer.get(calc(style.id))).json;
+    expect(grossGrams(afterTexture)).toBeCloseTo(grossGrams(afterYarn) * 1.5, 6);
+    // The price is the yarn's too: the studio sees the new one.
+    const dearer = await designer.patch(`/api/library/yarns/${yarn.id}`, { version: heavier.json.yarn.version, pricePerKg: 12 });
+    expect(dearer.status).toBe(200);
+    const afterPrice = (await designer.get(calc(style.id))).json;
+    expect(afterPrice.yarns.find((y: { id: string }) => y.id === yarn.id).pricePerKg).toBe(12);
+  });
+
+  it('a trim and a size spec change the next answer', async () => {
+    const { designer, style } = await ownStyle();
+    const before = (await designer.get(calc(style.id))).json;
+    expect(before.figures.care.extras).not.toContain('no-iron-trim');
+    // A trim carries its own version: the style's stays as it was.
+    const trim = await designer.post(`/api/styles/${style.id}/trims`, {
+      panelKind: 'front', name: 'Chest logo', kind: 'heat-transfer', method: 'heat-press', tempC: 150, box: { x: 100, y: 200, width: 60, height: 40 },
+    });
+    expect(trim.status).toBe(201);
+    const withTrim = (await designer.get(calc(style.id))).json;
+    expect(withTrim.style.version).toBe(before.style.version);
+    expect(withTrim.figures.care.extras).toContain('no-iron-trim');
+    expect((await designer.delete(`/api/styles/${style.id}/trims/${trim.json.trim.id}`)).status).toBe(200);
+    expect((await designer.get(calc(style.id))).json.figures.care.extras).not.toContain('no-iron-trim');
+    // A graded size spec grades the other sizes.
+    expect(before.figures.grading.mode).toBe('base-only');
+    const fit = (await designer.get(`/api/styles/${style.id}/fit`)).json.fit;
+    const points = fit.spec.points.map((p: any) => (p.point === 'chest-half' ? { ...p, baseCm: 48 } : p.point === 'body-length-hps' ? { ...p, baseCm: 66 } : p));
+    const { baseSize, girths, cutAndSew, baseTextureId, compressionTextureId, cylinderDiametersIn, target } = fit.spec;
+    const spec = await designer.put(`/api/styles/${style.id}/fit`, { version: fit.version, baseSize, points, girths, cutAndSew, baseTextureId, compressionTextureId, cylinderDiametersIn, target });
+    expect(spec.status).toBe(200);
+    const graded = (await designer.get(calc(style.id))).json;
+    expect(graded.figures.grading.mode).not.toBe('base-only');
+    expect(grossGrams(graded, 'L')).toBeGreaterThan(grossGrams(graded, 'M'));
+  });
+
+  it('an outside account never gets the studio answer kept for the same style', async () => {
+    const designer = await as('designer');
+    const mill = await as('mill');
+    const ridge = await styleByCode('HF27-101');
+    expect(keysOf((await designer.get(calc(ridge.id, 'qty=M:3'))).json).has('pricePerKg')).toBe(true);
+    expect(keysOf((await mill.get(calc(ridge.id, 'qty=M:3'))).json).has('pricePerKg')).toBe(false);
+    expect(keysOf((await designer.get(calc(ridge.id, 'qty=M:3'))).json).has('pricePerKg')).toBe(true);
+  });
+});
