@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import { db, type Db } from './knex';
 import { findActiveUserById, type SessionUser } from './users';
 import { findStyle } from './styles';
-import { buildPackData } from './pack-source';
+import { exportSource } from './exports';
 import { listVisibleReleases, releaseApprovals, requireRelease } from './releases';
 import { storeFile, withStoredFiles } from './files';
 import { notFound } from '@/lib/api/errors';
@@ -47,19 +47,7 @@ function toJob(r: JobRow): MillPackJob {
  * studio's staff otherwise. Outside accounts never get the working copy.
  */
 export async function loadExportData(user: SessionUser, styleId: string, releaseId: string | null | undefined, q: Knex = db()): Promise<PackData> {
-  const style = await findStyle(user, styleId, q);
-  if (!style) throw notFound('Style not found.');
-  if (releaseId) {
-    const release = await requireRelease(user, releaseId, q);
-    if (release.styleId !== styleId) throw notFound('Release not found.');
-    return release.snapshot;
-  }
-  if (isOutsideRole(user.role)) {
-    const latest = (await listVisibleReleases(user, q)).find((r) => r.styleId === styleId);
-    if (!latest) throw notFound('Nothing of this style was released to you yet.');
-    return (await requireRelease(user, latest.id, q)).snapshot;
-  }
-  return buildPackData(user, styleId, q);
+  return (await (await exportSource(user, styleId, releaseId, q)).read()).data;
 }
 
 async function accessibleJob(user: SessionUser, id: string, q: Db): Promise<JobRow> {

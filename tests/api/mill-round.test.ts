@@ -244,6 +244,56 @@ describe('exports of a release', () => {
   }, 120_000);
 });
 
+describe('the swatch sheet kept between downloads', () => {
+  it('is the same file until the data changes; a library edit, a list change and a release each show at once', async () => {
+    const designer = await as('designer');
+    const stamp = Date.now().toString(36);
+    const yarn = (await designer.post('/api/library/yarns', {
+      name: `Swatch cache polyamide ${stamp}`, supplierRef: 'TST-S', count: { value: 70, unit: 'den' },
+      makeUp: { kind: 'single', fibre: 'polyamide' }, colour: { state: 'dyeable' },
+    })).json.yarn;
+    const created = await designer.post('/api/library/textures', {
+      name: `Swatch cache jersey ${stamp}`, family: 'jersey', repeat: { needles: 1, courses: 1, cells: ['k'] },
+      feeders: [{ ground: yarn.id }], density: { walesPerCm: 20, coursesPerCm: 28 }, loopMm: { knit: 2.4, tuck: 1.8 },
+    });
+    expect(created.status).toBe(201);
+    const texture = created.json.texture;
+    const s = await releasableStyle(designer, [texture.id]);
+    const sheet = async (c: Client, query = '') => {
+      const res = await getBytes(c, `/api/styles/${s.id}/exports/swatch-sheet.pdf${query}`);
+      expect(res.status).toBe(200);
+      return { bytes: res.bytes, text: (await readPdf(res.bytes)).map((p) => p.text).join(' ') };
+    };
+    const first = await sheet(designer);
+    expect(first.text).toContain(`Swatch cache jersey ${stamp}`);
+    expect(Buffer.from((await sheet(designer)).bytes).equals(Buffer.from(first.bytes))).toBe(true);
+    // Each paper size is a file of its own.
+    expect((await readPdf((await sheet(designer, '?paper=letter')).bytes))[0]!.widthMm).toBeCloseTo(215.9, 1);
+    expect((await readPdf((await sheet(designer)).bytes))[0]!.widthMm).toBeCloseTo(210, 1);
+
+    // Released as it stands, then renamed in the library (the style's version does not move).
+    const release = (await designer.post(`/api/styles/${s.id}/releases`, { version: s.version, millIds: [orgs.quellmoor] })).json.release;
+    expect((await sheet(designer)).text).toContain(`Swatch cache jersey ${stamp}`);
+    const renamed = await designer.patch(`/api/library/textures/${texture.id}`, { version: texture.version, name: `Swatch cache single jersey ${stamp}` });
+    expect(renamed.status).toBe(200);
+    const working = await sheet(designer);
+    expect(working.text).toContain(`Swatch cache single jersey ${stamp}`);
+    expect(working.text).toContain('working copy, not released');
+    // The release keeps its name; the mill reads the release, never the working copy.
+    const released = await sheet(await as('mill'));
+    expect(released.text).toContain(`Swatch cache jersey ${stamp}`);
+    expect(released.text).not.toContain(`Swatch cache single jersey ${stamp}`);
+    expect(released.text).toContain('Revision 1 (released');
+    expect((await sheet(designer, `?release=${release.id}`)).text).toContain(`Swatch cache jersey ${stamp}`);
+
+    // A second texture on the style's list: a second swatch.
+    const style = (await designer.get(`/api/styles/${s.id}`)).json.style;
+    const put = await designer.put(`/api/styles/${s.id}/textures`, { version: style.version, textureIds: [texture.id, textureIds[1]] });
+    expect(put.status).toBe(200);
+    expect((await sheet(designer)).text).toContain('2×1 mock rib compression');
+  });
+});
+
 describe('uploads', () => {
   let styleId: string;
   beforeAll(async () => {

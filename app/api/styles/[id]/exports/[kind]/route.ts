@@ -1,7 +1,6 @@
 import { route, parseQuery } from '@/lib/api/handler';
 import { authorize } from '@/lib/auth/authorize';
-import { loadExportData } from '@/lib/db/mill-pack-jobs';
-import { exportFile } from '@/lib/mill/export-file';
+import { styleExport } from '@/lib/db/exports';
 import { exportParamsSchema, exportQuerySchema } from '@/lib/validations/mill';
 
 /**
@@ -13,8 +12,7 @@ export const GET = route<{ id: string; kind: string }>(async (req, params) => {
   const user = await authorize('mill:download');
   const { id, kind } = exportParamsSchema.parse(params);
   const query = parseQuery(req, exportQuerySchema);
-  const data = await loadExportData(user, id, query.release);
-  const out = exportFile(data, kind, query);
+  const out = await styleExport(user, id, kind, query);
   return new Response(Buffer.from(out.body), {
     headers: {
       'content-type': out.contentType,
