@@ -67,10 +67,14 @@ async function readSource(user: SessionUser, style: Style, q: Knex): Promise<Yar
   };
 }
 
-// Per process, keyed by the style's data stamp (lib/db/data-cache.ts). A source is some 10–50 KB;
-// an answer (figures and names) about as much.
-const sources = new DataCache<YarnCalculatorSource>({ maxEntries: 200, keepIf: (src) => src.notes.length === 0 });
-const answers = new DataCache<YarnCalculatorAnswer>({ maxEntries: 400 });
+// Per process, keyed by the style's data stamp (lib/db/data-cache.ts), bounded by count and by the
+// length of their JSON (a source is some 10–50 KB of it, a map at the panel limits several MB; an
+// answer, figures and names, some 20 KB).
+const jsonLength = (v: unknown) => JSON.stringify(v).length;
+const sources = new DataCache<YarnCalculatorSource>({
+  maxEntries: 200, maxBytes: 16 * 1024 * 1024, sizeOf: jsonLength, keepIf: (src) => src.notes.length === 0,
+});
+const answers = new DataCache<YarnCalculatorAnswer>({ maxEntries: 400, maxBytes: 16 * 1024 * 1024, sizeOf: jsonLength });
 
 /** Cached values are shared between requests: read inside a transaction, the data may yet be rolled back. */
 const cacheable = (q: Knex) => !(q as Knex.Transaction).isTransaction;
