@@ -141,7 +141,7 @@ export async function baseTextureForGeneration(
 /** The saved map, or panels generated from the style when nothing is saved yet (not stored until saved). */
 export async function loadBodyMap(user: SessionUser, styleId: string, q: Knex = db()): Promise<BodyMap | null> {
   // The style and its saved panels in one query.
-  const found = await findStyleWith<{ panels: Panel[] }>(user, styleId, [q.raw(`${panelsJsonSql('st.id')} as panels`)], q);
+  const found = await findStyleWith<{ panels: Panel[] }>(user, styleId, { panels: q.raw(panelsJsonSql('st.id')) }, q);
   if (!found) return null;
   if (found.panels.length) return { version: found.style.version, panels: found.panels, generated: false };
   return generatedMap(user.studioId, found.style, q);

@@ -43,58 +43,50 @@ export function visibleStyles(user: SessionUser, q: Db = db()): Knex.QueryBuilde
   return qb;
 }
 
-/** A timestamp as `Date.toISOString` writes it (UTC, milliseconds). */
-const isoSql = (column: string) => `to_char(${column} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
+interface StyleRow {
+  id: string; code: string; name: string; season: string; client_id: string | null; client_name: string | null;
+  garment_type: GarmentType; construction: Construction; machine: MachineSetup; sizes: SizeRange;
+  status: StyleStatus; revision: number; version: number; author_name: string | null;
+  created_at: string; updated_at: string; shares: StyleShare[] | null;
+}
+
+function toStyle(r: StyleRow): Style {
+  return {
+    id: r.id, code: r.code, name: r.name, season: r.season, clientId: r.client_id, clientName: r.client_name,
+    garmentType: r.garment_type, construction: r.construction, machine: r.machine, sizes: r.sizes,
+    status: r.status, revision: r.revision, version: r.version, authorName: r.author_name,
+    createdAt: r.created_at, updatedAt: r.updated_at, shares: r.shares ?? [],
+  };
+}
+
+/** A timestamp as `Date.toISOString` writes it (UTC, milliseconds), read as text: no Date made and written back per row. */
+const isoSql = (column: string, as: string) => `to_char(${column} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"') as ${as}`;
 
 /**
- * A `Style` as a JSON object built by the database from a row of `visibleStyles` (`st`) joined as
- * `selectStyle` joins it: the API's shape, so lists pass from the database to the response as
- * text. Outside accounts see only their own organisation among the shares.
+ * The style columns of `st` and its shares, for the styles `qb` selects. The shares of all those
+ * styles are gathered in one grouped join (one `json_agg` per style), not a lookup per row; `styleId`
+ * narrows it to one style. Outside accounts see only their own organisation among the shares.
  */
-function styleJson(q: Db, user: SessionUser): Knex.Raw {
-  const outside = isOutsideRole(user.role);
-  return q.raw(
-    `json_build_object('id', st.id, 'code', st.code, 'name', st.name, 'season', st.season, 'clientId', st.client_id,
-      'clientName', c.name, 'garmentType', st.garment_type, 'construction', st.construction, 'machine', st.machine,
-      'sizes', st.sizes, 'status', st.status, 'revision', st.revision, 'version', st.version, 'authorName', au.name,
-      'createdAt', ${isoSql('st.created_at')}, 'updatedAt', ${isoSql('st.updated_at')},
-      'shares', coalesce((select json_agg(json_build_object('organisationId', o.id, 'name', o.name, 'kind', o.kind) order by o.kind, o.name)
-        from style_shares sh join organisations o on o.id = sh.organisation_id
-        where sh.style_id = st.id ${outside ? 'and sh.organisation_id = ?' : ''}), '[]'::json))`,
-    outside ? [user.organisationId] : [],
-  );
-}
-
-function joinStyle(qb: Knex.QueryBuilder): Knex.QueryBuilder {
-  return qb.leftJoin('organisations as c', 'c.id', 'st.client_id').leftJoin('users as au', 'au.id', 'st.created_by');
-}
-
-/** One visible style as JSON (`style`), with more columns of `st` if asked for. */
-function selectStyle(user: SessionUser, id: string, q: Db, ...more: Knex.Raw[]): Knex.QueryBuilder {
-  return joinStyle(visibleStyles(user, q).andWhere('st.id', id)).first(q.raw('? as style', [styleJson(q, user)]), ...more);
-}
-
-/**
- * The styles the user may see, newest change first (at most 1000), as the JSON text of an array of
- * `Style`: built by the database and sent as it is by the list route.
- */
-export async function listStylesJson(
-  user: SessionUser,
-  filter: { q?: string; status?: StyleStatus; clientId?: string } = {},
-  q: Db = db(),
-): Promise<string> {
-  const qb = visibleStyles(user, q);
-  if (filter.q) {
-    const like = `%${filter.q.replace(/[\\%_]/g, (m) => `\\${m}`)}%`;
-    qb.where((w) => w.whereILike('st.code', like).orWhereILike('st.name', like).orWhereILike('st.season', like));
-  }
-  if (filter.status) qb.andWhere('st.status', filter.status);
-  if (filter.clientId) qb.andWhere('st.client_id', filter.clientId);
-  const rows = joinStyle(qb).select(q.raw('? as style', [styleJson(q, user)]), 'st.updated_at').orderBy('st.updated_at', 'desc').limit(1000);
-  const row = (await q.select(q.raw(`coalesce(json_agg(x.style order by x.updated_at desc), '[]')::text as styles`)).from(rows.as('x')).first()) as
-    | { styles: string }
-    | undefined;
-  return row?.styles ?? '[]';
+function selectStyle(qb: Knex.QueryBuilder, q: Db, user: SessionUser, styleId?: string): Knex.QueryBuilder {
+  const shares = q('style_shares as sh')
+    .join('organisations as o', 'o.id', 'sh.organisation_id')
+    .join('styles as ss', 'ss.id', 'sh.style_id')
+    .where('ss.studio_id', user.studioId)
+    .modify((b) => {
+      if (styleId) b.andWhere('sh.style_id', styleId);
+      if (isOutsideRole(user.role)) b.andWhere('sh.organisation_id', user.organisationId);
+    })
+    .groupBy('sh.style_id')
+    .select('sh.style_id', q.raw(`json_agg(json_build_object('organisationId', o.id, 'name', o.name, 'kind', o.kind) order by o.kind, o.name) as shares`));
+  return qb
+    .leftJoin('organisations as c', 'c.id', 'st.client_id')
+    .leftJoin('users as au', 'au.id', 'st.created_by')
+    .leftJoin(shares.as('shs'), 'shs.style_id', 'st.id')
+    .select(
+      'st.id', 'st.code', 'st.name', 'st.season', 'st.client_id', 'c.name as client_name', 'st.garment_type',
+      'st.construction', 'st.machine', 'st.sizes', 'st.status', 'st.revision', 'st.version',
+      'au.name as author_name', q.raw(isoSql('st.created_at', 'created_at')), q.raw(isoSql('st.updated_at', 'updated_at')), 'shs.shares',
+    );
 }
 
 export async function listStyles(
@@ -102,20 +94,38 @@ export async function listStyles(
   filter: { q?: string; status?: StyleStatus; clientId?: string } = {},
   q: Db = db(),
 ): Promise<Style[]> {
-  return JSON.parse(await listStylesJson(user, filter, q)) as Style[];
+  const qb = visibleStyles(user, q);
+  if (filter.q) {
+    const like = `%${filter.q.replace(/[\\%_]/g, (m) => `\\${m}`)}%`;
+    qb.where((w) => w.whereILike('st.code', like).orWhereILike('st.name', like).orWhereILike('st.season', like));
+  }
+  if (filter.status) qb.andWhere('st.status', filter.status);
+  if (filter.clientId) qb.andWhere('st.client_id', filter.clientId);
+  const rows = (await selectStyle(qb, q, user).orderBy('st.updated_at', 'desc').limit(1000)) as StyleRow[];
+  return rows.map(toStyle);
 }
 
 export async function findStyle(user: SessionUser, id: string, q: Db = db()): Promise<Style | null> {
-  const row = (await selectStyle(user, id, q)) as { style: Style } | undefined;
-  return row?.style ?? null;
+  return (await findStyleWith(user, id, {}, q))?.style ?? null;
 }
 
 /**
- * `findStyle` with more columns computed for the style's row (`st`) in the same query, e.g. its
- * panels: one round trip to the database instead of two.
+ * `findStyle` with more values computed for the style's row (`st`) in the same query, e.g. its
+ * panels: one round trip to the database instead of two. `columns` names each value's SQL.
  */
-export async function findStyleWith<E extends object>(user: SessionUser, id: string, columns: Knex.Raw[], q: Db = db()): Promise<(E & { style: Style }) | null> {
-  return ((await selectStyle(user, id, q, ...columns)) as (E & { style: Style }) | undefined) ?? null;
+export async function findStyleWith<E extends Record<string, unknown>>(
+  user: SessionUser,
+  id: string,
+  columns: { [K in keyof E]: Knex.Raw },
+  q: Db = db(),
+): Promise<(E & { style: Style }) | null> {
+  const names = Object.keys(columns) as (keyof E & string)[];
+  const row = (await selectStyle(visibleStyles(user, q).andWhere('st.id', id), q, user, id)
+    .select(names.map((k) => q.raw(`? as ??`, [columns[k], `x_${k}`])))
+    .first()) as (StyleRow & Record<string, unknown>) | undefined;
+  if (!row) return null;
+  const extra = Object.fromEntries(names.map((k) => [k, row[`x_${k}`]])) as E;
+  return { ...extra, style: toStyle(row) };
 }
 
 /**
@@ -132,7 +142,7 @@ const dataStampSql = `concat_ws('/', st.version,
   (select md5(coalesce(string_agg(x.id::text || ':' || x.version, ',' order by x.id), '')) from textures x where x.studio_id = st.studio_id),
   (select md5(coalesce(string_agg(x.id::text || ':' || x.version, ',' order by x.id), '')) from yarns x where x.studio_id = st.studio_id),
   (select md5(coalesce(string_agg(x.id::text || ':' || x.version, ',' order by x.id), '')) from colour_standards x where x.studio_id = st.studio_id),
-  (select md5(coalesce(x.settings::text, '')) from studios x where x.id = st.studio_id)) as data_stamp`;
+  (select md5(coalesce(x.settings::text, '')) from studios x where x.id = st.studio_id))`;
 
 /**
  * `findStyle` with the stamp of the style's data (see `dataStampSql`), in one query: the key of
@@ -140,8 +150,7 @@ const dataStampSql = `concat_ws('/', st.version,
  * value kept under a stamp is never older than the stamp.
  */
 export async function findStyleStamped(user: SessionUser, id: string, q: Db = db()): Promise<{ style: Style; stamp: string } | null> {
-  const row = await findStyleWith<{ data_stamp: string }>(user, id, [q.raw(dataStampSql)], q);
-  return row ? { style: row.style, stamp: row.data_stamp } : null;
+  return findStyleWith<{ stamp: string }>(user, id, { stamp: q.raw(dataStampSql) }, q);
 }
 
 async function assertClientOfStudio(user: SessionUser, clientId: string | null | undefined, q: Db) {
