@@ -2,9 +2,8 @@
  * Every route handler, called as every role and signed out, with the status each must answer.
  * The list of routes is read from app/api: a new route without entries here fails this test.
  */
-import { readdirSync, readFileSync, statSync } from 'node:fs';
-import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { discoverRoutes } from './routes';
 import { anonymous, as, accounts, baseUrl, Client, demoPassword, newStyleBody, styleByCode, type Account } from './helpers';
 
 type Caller = 'anon' | 'admin' | 'designer' | 'colour-lead' | 'client' | 'mill';
@@ -662,27 +661,6 @@ async function freshReference(styleId?: string) {
 }
 let sharedReference: ReturnType<typeof freshReference> | null = null;
 
-/** Every METHOD + path exported by a route.ts under app/api. */
-function discoverRoutes(): string[] {
-  const root = path.resolve(import.meta.dirname, '../../app/api');
-  const found: string[] = [];
-  const walk = (dir: string) => {
-    for (const name of readdirSync(dir)) {
-      const p = path.join(dir, name);
-      if (statSync(p).isDirectory()) walk(p);
-      else if (name === 'route.ts') {
-        const src = readFileSync(p, 'utf8');
-        const url = '/api/' + path.relative(root, path.dirname(p)).split(path.sep).join('/');
-        for (const m of src.matchAll(/export\s+(?:const|async\s+function|function)\s+(GET|POST|PUT|PATCH|DELETE)\b/g)) {
-          found.push(`${m[1]} ${url.replace(/\/$/, '')}`);
-        }
-      }
-    }
-  };
-  walk(root);
-  return found.sort();
-}
-
 describe('authorization matrix', () => {
   const ctx = {} as Ctx;
   const clients = {} as Record<Caller, Client>;
@@ -699,7 +677,7 @@ describe('authorization matrix', () => {
   });
 
   it('lists every route handler', () => {
-    expect(Object.keys(matrix).sort()).toEqual(discoverRoutes());
+    expect(Object.keys(matrix).sort()).toEqual(discoverRoutes().map((r) => r.key).sort());
   });
 
   for (const [key, entry] of Object.entries(matrix)) {

@@ -7,46 +7,15 @@
  * with a JSON error (or, for valid input, a success): never a 500, and a refused request changes
  * nothing in the database.
  */
-import { readdirSync, readFileSync, statSync } from 'node:fs';
-import path from 'node:path';
 import { randomUUID } from 'node:crypto';
 import { request as httpRequest } from 'node:http';
 import fc from 'fast-check';
 import knexFactory, { type Knex } from 'knex';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { as, baseUrl, Client, newStyleBody, type Account } from './helpers';
+import { discoverRoutes } from './routes';
 
-type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
-interface RouteInfo { key: string; method: Method; template: string; parsesBody: boolean; multipart: boolean }
-
-const apiRoot = path.resolve(import.meta.dirname, '../../app/api');
-
-function discover(): RouteInfo[] {
-  const out: RouteInfo[] = [];
-  const walk = (dir: string) => {
-    for (const name of readdirSync(dir)) {
-      const p = path.join(dir, name);
-      if (statSync(p).isDirectory()) walk(p);
-      else if (name === 'route.ts') {
-        const src = readFileSync(p, 'utf8');
-        const template = '/api/' + path.relative(apiRoot, dir).split(path.sep).join('/');
-        for (const m of src.matchAll(/export (?:const|async function|function) (GET|POST|PUT|PATCH|DELETE)\b/g)) {
-          const method = m[1] as Method;
-          const writes = method !== 'GET' && method !== 'DELETE';
-          out.push({
-            key: `${method} ${template}`, method, template,
-            parsesBody: writes && src.includes('parseBody('),
-            multipart: writes && src.includes('readMultipart('),
-          });
-        }
-      }
-    }
-  };
-  walk(apiRoot);
-  return out.sort((a, b) => a.key.localeCompare(b.key));
-}
-
-const routes = discover();
+const routes = discoverRoutes();
 const writeRoutes = routes.filter((r) => r.method !== 'GET' && r.key !== 'POST /api/auth/sign-out');
 const jsonRoutes = writeRoutes.filter((r) => r.parsesBody);
 const multipartRoutes = writeRoutes.filter((r) => r.multipart);

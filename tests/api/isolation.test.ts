@@ -7,36 +7,13 @@
  * A new route with a path parameter this file does not know fails "every id is known": add the
  * parameter to `idFor`.
  */
-import { readdirSync, readFileSync, statSync } from 'node:fs';
-import path from 'node:path';
 import { randomUUID } from 'node:crypto';
 import knexFactory, { type Knex } from 'knex';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { as, baseUrl, Client, newStyleBody, styleByCode, type Account } from './helpers';
+import { discoverRoutes, type Method } from './routes';
 
-type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
-interface RouteInfo { key: string; method: Method; template: string; multipart: boolean }
-
-const apiRoot = path.resolve(import.meta.dirname, '../../app/api');
-function discover(): RouteInfo[] {
-  const out: RouteInfo[] = [];
-  const walk = (dir: string) => {
-    for (const name of readdirSync(dir)) {
-      const p = path.join(dir, name);
-      if (statSync(p).isDirectory()) walk(p);
-      else if (name === 'route.ts') {
-        const src = readFileSync(p, 'utf8');
-        const template = '/api/' + path.relative(apiRoot, dir).split(path.sep).join('/');
-        for (const m of src.matchAll(/export (?:const|async function|function) (GET|POST|PUT|PATCH|DELETE)\b/g)) {
-          out.push({ key: `${m[1]} ${template}`, method: m[1] as Method, template, multipart: src.includes('readMultipart(') });
-        }
-      }
-    }
-  };
-  walk(apiRoot);
-  return out.sort((a, b) => a.key.localeCompare(b.key));
-}
-const routes = discover();
+const routes = discoverRoutes();
 const getRoutes = routes.filter((r) => r.method === 'GET');
 const exportKinds = ['swatch-sheet.pdf', 'tile.png', 'stitch-map.png', 'stitch-map.csv', 'stitch-map.json', 'yarn-list.csv'];
 
