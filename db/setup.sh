@@ -23,13 +23,8 @@ as_postgres() {
   if [ "$(id -u)" = "0" ]; then runuser -u postgres -- "$@"; else "$@"; fi
 }
 
-find_bin() {
-  local d
-  for d in $(ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V -r); do
-    if [ -x "$d/initdb" ]; then echo "$d"; return 0; fi
-  done
-  return 1
-}
+. db/pg-tools.sh
+find_bin() { pg_bin_dir initdb; }
 
 ensure_installed() {
   if find_bin >/dev/null; then return 0; fi

@@ -1,4 +1,5 @@
 import 'server-only';
+import { cache } from 'react';
 import { forbidden, unauthorized } from '@/lib/api/errors';
 import { findUserBySession, type SessionUser } from '@/lib/db/users';
 import { can, type Permission } from './roles';
@@ -9,14 +10,15 @@ export type { SessionUser };
 /**
  * The caller's session and account, or null when signed out. The cookie names a session row; the
  * row and the account are read fresh in one query, so sign-out, a password change, deactivation and
- * role changes apply at once.
+ * role changes apply at once. Within one server render (layout and page of one view) the read is
+ * shared through React's per-request cache; route handlers read it once each.
  */
-export async function currentSession(): Promise<{ user: SessionUser; sessionId: string } | null> {
+export const currentSession = cache(async (): Promise<{ user: SessionUser; sessionId: string } | null> => {
   const sessionId = await cookieSessionId();
   if (!sessionId) return null;
   const user = await findUserBySession(sessionId);
   return user ? { user, sessionId } : null;
-}
+});
 
 /** The signed-in user, or null. */
 export async function currentUser(): Promise<SessionUser | null> {
