@@ -637,6 +637,9 @@ export const matrix: Record<string, Entry> = {
   'GET /api/styles/[id]/quote/export': { expect: staffOnly(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/quote/export?format=csv`) },
   'GET /api/settings/costing': { expect: staffOnly(200), run: (c) => c.get('/api/settings/costing') },
   'PUT /api/settings/costing': { expect: editors(200), run: (c) => c.put('/api/settings/costing', { rates: { machineMinuteRate: 0.35 } }) },
+  'GET /api/settings/machine-limits': { expect: staffOnly(200), run: (c) => c.get('/api/settings/machine-limits') },
+  // Blank limits: the defaults stay, so the other tests' rule findings do not change.
+  'PUT /api/settings/machine-limits': { expect: adminOnly(200), run: (c) => c.put('/api/settings/machine-limits', { limits: { maxFloatMm: null, maxTuckStack: null } }) },
 };
 
 function briefReaders(ok: number) {
