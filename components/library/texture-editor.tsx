@@ -240,11 +240,16 @@ export function TextureEditor({ texture, yarns, canEdit, ruleLimits, preview }: 
   const onArchive = async () => {
     if (!saved.id || !window.confirm(`Archive ${meta.name}? It leaves the library; nothing is deleted.`)) return;
     try {
-      await api(`/api/library/textures/${saved.id}`, { method: 'DELETE' });
+      // The version this tab last saved or loaded: archiving over a newer save gets 409.
+      await api(`/api/library/textures/${saved.id}?version=${saved.version}`, { method: 'DELETE' });
       await qc.invalidateQueries({ queryKey: ['library'] });
       router.push('/library');
     } catch (e) {
-      setNotice({ tone: 'error', message: e instanceof ApiError ? e.message : 'Archiving failed.' });
+      setNotice({
+        tone: 'error',
+        message: e instanceof ApiError ? e.message : 'Archiving failed.',
+        stale: e instanceof ApiError && e.status === 409 && 'currentVersion' in e.body,
+      });
     }
   };
 
