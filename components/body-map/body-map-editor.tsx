@@ -8,7 +8,7 @@ import type { Texture } from '@/lib/knit/texture';
 import type { Yarn } from '@/lib/knit/yarn';
 import type { LibraryTexture } from '@/lib/db/textures';
 import { summariseBodyMap, type BodyMapSummary } from '@/lib/knit/summary';
-import { runRules, type RuleFinding } from '@/lib/rules';
+import { runRules, type RuleFinding, type StudioRuleLimits } from '@/lib/rules';
 import { flatColourForTexture, flatColoursForTextures } from '@/lib/knit/render';
 import { useAutosave } from './use-autosave';
 import { Toolbar } from './toolbar';
@@ -31,6 +31,8 @@ export interface BodyMapEditorProps {
   textures: LibraryTexture[];
   yarns: Yarn[];
   machine: { construction: 'seamless' | 'flat'; gauge: number; maxYarns: number };
+  /** The studio's float and tuck limits for the rules, with where each comes from. */
+  ruleLimits: StudioRuleLimits;
   readOnly: boolean;
   baseSize: string;
   /** The style's trims to show over the map, by panel id. */
@@ -48,7 +50,7 @@ function textureLookup(textures: readonly Texture[]): TextureLookup {
   return out;
 }
 
-export function BodyMapEditor({ styleId, initial, textures, yarns, machine, readOnly, baseSize, trims }: BodyMapEditorProps) {
+export function BodyMapEditor({ styleId, initial, textures, yarns, machine, ruleLimits, readOnly, baseSize, trims }: BodyMapEditorProps) {
   const [editor] = useState(
     () =>
       new Editor({
@@ -84,11 +86,11 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, read
   }, [state.doc.panels, textureMap, yarns, machine.gauge, editor]);
   const findings: RuleFinding[] = useMemo(() => {
     try {
-      return runRules({ panels: state.doc.panels, textures: textureMap, yarns, machine, rasters: summary.rasters });
+      return runRules({ panels: state.doc.panels, textures: textureMap, yarns, machine, limits: ruleLimits.limits, rasters: summary.rasters });
     } catch (err) {
       return [{ rule: 'unknown-texture', severity: 'error', message: err instanceof Error ? err.message : String(err), where: {} } as RuleFinding];
     }
-  }, [state.doc.panels, textureMap, yarns, machine, summary]);
+  }, [state.doc.panels, textureMap, yarns, machine, ruleLimits, summary]);
 
   // Keyboard: shortcuts are data in the editor; off while a text field has focus.
   useEffect(() => {
@@ -136,7 +138,7 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, read
       </div>
       <aside className="flex min-h-0 flex-col gap-4 overflow-y-auto pr-1">
         <ZonePanel editor={editor} state={state} textures={textures} summary={summary} colourOf={colourOf} styleId={styleId} />
-        <SummaryPanel summary={summary} findings={findings} textures={textureMap} yarns={yarns} onFinding={onFinding} baseSize={baseSize} colourOf={colourOf} />
+        <SummaryPanel summary={summary} findings={findings} ruleLimits={ruleLimits} textures={textureMap} yarns={yarns} onFinding={onFinding} baseSize={baseSize} colourOf={colourOf} />
       </aside>
     </div>
   );

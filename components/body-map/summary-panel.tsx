@@ -4,7 +4,7 @@ import { useState } from 'react';
 import type { BodyMapSummary } from '@/lib/knit/summary';
 import type { Texture } from '@/lib/knit/texture';
 import type { Yarn } from '@/lib/knit/yarn';
-import type { RuleFinding } from '@/lib/rules';
+import { describeRuleLimits, type RuleFinding, type StudioRuleLimits } from '@/lib/rules';
 import { labelCaution } from '@/lib/knit/content';
 
 const int = new Intl.NumberFormat('en-GB');
@@ -22,8 +22,8 @@ function Section({ title, children, aside }: { title: string; children: React.Re
   );
 }
 
-export function SummaryPanel({ summary, findings, textures, yarns, onFinding, baseSize, colourOf }: {
-  summary: BodyMapSummary; findings: RuleFinding[]; textures: ReadonlyMap<string, Texture>; yarns: readonly Yarn[];
+export function SummaryPanel({ summary, findings, ruleLimits, textures, yarns, onFinding, baseSize, colourOf }: {
+  summary: BodyMapSummary; findings: RuleFinding[]; ruleLimits: StudioRuleLimits; textures: ReadonlyMap<string, Texture>; yarns: readonly Yarn[];
   onFinding: (f: RuleFinding) => void; baseSize: string; colourOf: (id: string) => string;
 }) {
   const [region, setRegion] = useState<'eu' | 'us'>('eu');
@@ -120,6 +120,7 @@ export function SummaryPanel({ summary, findings, textures, yarns, onFinding, ba
             ))}
           </ul>
         )}
+        <p className="mt-2 text-2xs text-ink-faint" data-testid="rule-limits">Limits: {describeRuleLimits(ruleLimits)}.</p>
       </Section>
     </>
   );

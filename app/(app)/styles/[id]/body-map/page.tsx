@@ -4,6 +4,7 @@ import { loadBodyMap } from '@/lib/db/body-map';
 import { listStyleTextures, listTextures, yarnsOfTextures } from '@/lib/db/textures';
 import { yarnForViewer } from '@/lib/db/yarns';
 import { listTrims } from '@/lib/db/trims';
+import { studioRuleLimits } from '@/lib/db/rule-limits';
 import { trimKindLabels } from '@/lib/validations/library';
 import { BodyMapEditor } from '@/components/body-map/body-map-editor';
 import { notFound } from 'next/navigation';
@@ -13,7 +14,9 @@ export const metadata: Metadata = { title: 'Body map' };
 
 export default async function BodyMapPage({ params }: { params: Promise<{ id: string }> }) {
   const { user, style } = await workingCopyStyle((await params).id);
-  const [map, styleTextures, styleTrims] = await Promise.all([loadBodyMap(user, style.id), listStyleTextures(user, style.id), listTrims(user, style.id)]);
+  const [map, styleTextures, styleTrims, ruleLimits] = await Promise.all([
+    loadBodyMap(user, style.id), listStyleTextures(user, style.id), listTrims(user, style.id), studioRuleLimits(user.studioId),
+  ]);
   if (!map) notFound();
   const panelIdOf = new Map(map.panels.map((p) => [p.kind, p.id]));
   const trims = styleTrims.flatMap((t) => {
@@ -33,6 +36,7 @@ export default async function BodyMapPage({ params }: { params: Promise<{ id: st
       textures={textures}
       yarns={yarns}
       machine={machine}
+      ruleLimits={ruleLimits}
       readOnly={!can(user.role, 'style:edit')}
       baseSize={style.sizes.base}
       trims={trims}
