@@ -171,6 +171,21 @@ export interface ContentLabelOptions {
 export const SMALL_SHARE_THRESHOLD = 0.05;
 /** EU Art. 9(2): 'other fibres' may hold up to 15 % together. */
 export const EU_OTHER_FIBRES_TOTAL = 0.15;
+/**
+ * Float slack for comparing shares with each other and with thresholds: shares computed from grams
+ * carry rounding error (95 g : 5 g can give 0.049999999999999996), and a share that is exactly at a
+ * legal threshold must fall on the side the text puts it.
+ */
+const SHARE_EPSILON = 1e-9;
+
+/** -1 if `a` is below `b`, 1 if above, 0 if they are equal within `SHARE_EPSILON`. */
+function compareShares(a: number, b: number): -1 | 0 | 1 {
+  const d = a - b;
+  if (d > SHARE_EPSILON) return 1;
+  if (d < -SHARE_EPSILON) return -1;
+  return 0;
+}
+
 /** EU Art. 20(3) manufacturing tolerance, % of the fibre weight. */
 export const EU_TOLERANCE_PCT = 3;
 /** US §303.43 tolerance, percentage points (from memory). */
@@ -263,16 +278,16 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
 
   let other: { share: number; fibres: FibreId[]; names: string[] } | undefined;
   const tolerance = region === 'eu' ? EU_TOLERANCE_PCT : US_TOLERANCE_PCT;
-  const nearThreshold = (share: number) => Math.abs(share * 100 - SMALL_SHARE_THRESHOLD * 100) <= tolerance;
+  const nearThreshold = (share: number, threshold: number) => compareShares(Math.abs(share - threshold), tolerance / 100) <= 0;
 
   switch (region) {
     case 'eu': {
       if (opts.otherFibres) {
-        const small = named.filter((g) => g.share <= SMALL_SHARE_THRESHOLD).sort((p, q) => p.share - q.share);
+        const small = named.filter((g) => compareShares(g.share, SMALL_SHARE_THRESHOLD) <= 0).sort((p, q) => p.share - q.share);
         let sum = 0;
         const grouped: typeof small = [];
         for (const g of small) {
-          if (sum + g.share > EU_OTHER_FIBRES_TOTAL + 1e-12) break;
+          if (compareShares(sum + g.share, EU_OTHER_FIBRES_TOTAL) > 0) break;
           sum += g.share;
           grouped.push(g);
         }
@@ -282,7 +297,7 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
           notes.push(
             `'other fibres' (${grouped.map((g) => `${g.name} ${pct(g.share)}`).join(', ')}): allowed for fibres of up to 5 % each and up to 15 % together only where they cannot easily be stated at the time of manufacture (Reg. (EU) 1007/2011 Art. 9(2)).`,
           );
-          if (Math.abs(sum * 100 - EU_OTHER_FIBRES_TOTAL * 100) <= tolerance) {
+          if (nearThreshold(sum, EU_OTHER_FIBRES_TOTAL)) {
             notes.push(
               `'other fibres' total ${pct(sum)} is within the ${tolerance} % manufacturing tolerance (Art. 20(3)) of the 15 % limit of Art. 9(2).`,
             );
@@ -290,7 +305,7 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
         }
       }
       for (const g of named) {
-        if (nearThreshold(g.share)) {
+        if (nearThreshold(g.share, SMALL_SHARE_THRESHOLD)) {
           notes.push(
             `${g.name} at ${pct(g.share)} is within the ${tolerance} % manufacturing tolerance (Art. 20(3)) of the 5 % limit up to which a fibre may be grouped as 'other fibres' (Art. 9(2)).`,
           );
@@ -302,7 +317,7 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
       const functional = new Set<FibreId>(
         opts.functionalFibres ?? entries.filter((e) => fibres[e.fibre].kind === 'elastomeric').map((e) => e.fibre),
       );
-      const small = named.filter((g) => g.share < SMALL_SHARE_THRESHOLD);
+      const small = named.filter((g) => compareShares(g.share, SMALL_SHARE_THRESHOLD) < 0);
       const grouped = small.filter((g) => !g.fibres.every((f) => functional.has(f)));
       for (const g of small) {
         if (grouped.includes(g)) continue;
@@ -321,7 +336,7 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
         );
       }
       for (const g of named) {
-        if (nearThreshold(g.share)) {
+        if (nearThreshold(g.share, SMALL_SHARE_THRESHOLD)) {
           notes.push(
             `${g.name} at ${pct(g.share)} is within the ${tolerance}-point tolerance (16 CFR 303.43) of the 5 % naming threshold (§303.6); an analysis may put it on the other side.`,
           );

@@ -245,6 +245,34 @@ describe('contentLabel: US (16 CFR Part 303)', () => {
   });
 });
 
+describe('contentLabel: a share exactly at a threshold, computed from grams', () => {
+  const pes = yarn('pes', 78, 'polyester');
+  const pa = yarn('pa', 78, 'polyamide');
+  const from = (polyesterGrams: number, polyamideGrams: number) =>
+    fibreContent({ yarnGrams: { pes: polyesterGrams, pa: polyamideGrams }, yarns: [pes, pa], method: 'nominal' });
+
+  it('32.3 g : 1.7 g (19:1) names the 5 % fibre in the US and group it in the EU', () => {
+    const s = from(19 * 1.7, 1.7);
+    // Precondition: the division lands just under 0.05, the case the comparison must survive.
+    expect(s.polyamide).toBeLessThan(0.05);
+    // §303.6: "5 per centum or more" is named (references.md §3).
+    expect(contentLabel(s, 'us').text).toBe('95% polyester, 5% nylon');
+    // Art. 9(2): "up to 5 %" may be 'other fibres' (references.md §2(b)).
+    expect(contentLabel(s, 'eu', { otherFibres: true }).text).toBe('95 % polyester, 5 % other fibres');
+  });
+
+  it('property: any grams in an exact 19:1 ratio give the same labels', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0.001, max: 5000, noNaN: true }), (grams) => {
+        const s = from(19 * grams, grams);
+        expect(contentLabel(s, 'us').text).toBe('95% polyester, 5% nylon');
+        expect(contentLabel(s, 'eu', { otherFibres: true }).text).toBe('95 % polyester, 5 % other fibres');
+      }),
+      { numRuns: 300 },
+    );
+  });
+});
+
 describe('contentLabel: properties', () => {
   it('percentages sum to 100, lines descend (other last), every fibre is accounted for', () => {
     const fibre = fc.constantFrom(...fibreIds);
