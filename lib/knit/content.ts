@@ -201,6 +201,12 @@ export const labelCaution =
  * was rounded up the most (or else the largest).
  */
 export function largestRemainderPercents(values: readonly number[], minimumOne = false): number[] {
+  return roundPercents(values, minimumOne).percents;
+}
+
+/** `largestRemainderPercents`, also telling which entries were rounded to 0 and then raised to 1. */
+function roundPercents(values: readonly number[], minimumOne: boolean): { percents: number[]; raisedToOne: boolean[] } {
+  const raisedToOne = values.map(() => false);
   const total = values.reduce((s, v) => s + v, 0);
   if (!(total > 0)) throw new RangeError('Nothing to share out.');
   const exact = values.map((v) => (v / total) * 100);
@@ -229,9 +235,10 @@ export function largestRemainderPercents(values: readonly number[], minimumOne =
       if (donor < 0) break;
       out[donor] = (out[donor] as number) - 1;
       out[i] = 1;
+      raisedToOne[i] = true;
     }
   }
-  return out;
+  return { percents: out, raisedToOne };
 }
 
 function normalise(shares: FibreShares): { fibre: FibreId; share: number }[] {
@@ -304,8 +311,10 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
           }
         }
       }
+      // Only a fibre grouped as 'other fibres' is at risk: analysis over 5 % would make the grouping
+      // wrong. A named fibre stays correctly named on either side of 5 %.
       for (const g of named) {
-        if (nearThreshold(g.share, SMALL_SHARE_THRESHOLD)) {
+        if (other?.names.includes(g.name) && nearThreshold(g.share, SMALL_SHARE_THRESHOLD)) {
           notes.push(
             `${g.name} at ${pct(g.share)} is within the ${tolerance} % manufacturing tolerance (Art. 20(3)) of the 5 % limit up to which a fibre may be grouped as 'other fibres' (Art. 9(2)).`,
           );
@@ -317,12 +326,14 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
       const functional = new Set<FibreId>(
         opts.functionalFibres ?? entries.filter((e) => fibres[e.fibre].kind === 'elastomeric').map((e) => e.fibre),
       );
+      const isFunctional = (g: { fibres: FibreId[] }) => g.fibres.every((f) => functional.has(f));
       const small = named.filter((g) => compareShares(g.share, SMALL_SHARE_THRESHOLD) < 0);
-      const grouped = small.filter((g) => !g.fibres.every((f) => functional.has(f)));
+      const grouped = small.filter((g) => !isFunctional(g));
       for (const g of small) {
         if (grouped.includes(g)) continue;
+        const reason = g.fibres.every((f) => fibres[f].kind === 'elastomeric') ? ' (stretch)' : '';
         notes.push(
-          `${g.name} at ${pct(g.share)} is under 5 % but named for its functional significance (stretch) under 16 CFR 303.3(a); that significance must be real and established.`,
+          `${g.name} at ${pct(g.share)} is under 5 % but named for its functional significance${reason} under 16 CFR 303.3(a); that significance must be real and established.`,
         );
       }
       if (grouped.length > 0) {
@@ -335,8 +346,9 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
           `${grouped.map((g) => `${g.name} ${pct(g.share)}`).join(', ')}: under 5 % and not named, so labelled '${grouped.length === 1 ? 'other fiber' : 'other fibers'}' (16 CFR 303.6, 303.42(a)).`,
         );
       }
+      // A fibre named for its functional significance keeps its line on either side of 5 %.
       for (const g of named) {
-        if (nearThreshold(g.share, SMALL_SHARE_THRESHOLD)) {
+        if (!isFunctional(g) && nearThreshold(g.share, SMALL_SHARE_THRESHOLD)) {
           notes.push(
             `${g.name} at ${pct(g.share)} is within the ${tolerance}-point tolerance (16 CFR 303.43) of the 5 % naming threshold (§303.6); an analysis may put it on the other side.`,
           );
@@ -352,7 +364,7 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
     const otherName = region === 'eu' ? 'other fibres' : other.names.length === 1 ? 'other fiber' : 'other fibers';
     rows.push({ name: otherName, share: other.share, fibres: other.fibres, other: true });
   }
-  const percents = largestRemainderPercents(
+  const { percents, raisedToOne } = roundPercents(
     rows.map((r) => r.share),
     true,
   );
@@ -363,8 +375,8 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
     fibres: r.fibres,
     other: r.other,
   }));
-  for (const l of lines) {
-    if (l.exactPercent > 0 && l.exactPercent < 0.5) {
+  for (const [i, l] of lines.entries()) {
+    if (raisedToOne[i]) {
       notes.push(`${l.name} (${l.exactPercent.toFixed(2)} %) would round to 0 % and is shown as 1 %.`);
     }
   }

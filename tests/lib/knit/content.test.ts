@@ -193,11 +193,29 @@ describe('contentLabel: EU (Regulation (EU) No 1007/2011)', () => {
     expect(label.lines.reduce((s, l) => s + l.percent, 0)).toBe(100);
   });
 
-  it('notes a share within the 3 % manufacturing tolerance (Art. 20(3)) of the 5 % threshold', () => {
-    const near = contentLabel({ polyester: 0.94, elastane: 0.06 }, 'eu');
-    expect(near.notes.some((n) => n.includes('elastane') && n.includes('Art. 20(3)'))).toBe(true);
-    const far = contentLabel({ polyester: 0.91, elastane: 0.09 }, 'eu');
+  it("notes a fibre grouped as 'other fibres' within the 3 % manufacturing tolerance (Art. 20(3)) of the 5 % limit", () => {
+    const near = contentLabel({ polyester: 0.96, elastane: 0.04 }, 'eu', { otherFibres: true });
+    expect(near.notes.some((n) => n.includes('elastane at') && n.includes('Art. 20(3)'))).toBe(true);
+    // Every fibre named (Art. 9(1)): 5 % decides nothing, so no note for 6 % or 4 % elastane.
+    expect(contentLabel({ polyester: 0.94, elastane: 0.06 }, 'eu').notes.some((n) => n.includes('elastane at'))).toBe(false);
+    expect(contentLabel({ polyester: 0.96, elastane: 0.04 }, 'eu').notes.some((n) => n.includes('elastane at'))).toBe(false);
+    // Named at 6 % beside 'other fibres': named correctly on either side of 5 %.
+    const named = contentLabel({ polyester: 0.9, elastane: 0.06, polyamide: 0.04 }, 'eu', { otherFibres: true });
+    expect(named.notes.some((n) => n.includes('elastane at'))).toBe(false);
+    expect(named.notes.some((n) => n.includes('polyamide at'))).toBe(true);
+    const far = contentLabel({ polyester: 0.91, elastane: 0.09 }, 'eu', { otherFibres: true });
     expect(far.notes.some((n) => n.includes('elastane at'))).toBe(false);
+  });
+
+  it("'shown as 1 %' only for a line the rounding put at 0 % (largest remainder, common practice, no published source)", () => {
+    // 99.2 / 0.4 / 0.4: the one point left goes to elastane (tie, earlier line); polyamide rounds to 0 and is raised.
+    const a = contentLabel({ polyester: 0.992, elastane: 0.004, polyamide: 0.004 }, 'eu');
+    expect(a.text).toBe('98 % polyester, 1 % elastane, 1 % polyamide');
+    expect(a.notes.filter((n) => n.includes('shown as 1 %'))).toEqual([expect.stringContaining('polyamide')]);
+    // 98.8 / 0.6 / 0.6: the two points go to polyester and elastane; polyamide, above 0.5 %, still rounds to 0.
+    const b = contentLabel({ polyester: 0.988, elastane: 0.006, polyamide: 0.006 }, 'eu');
+    expect(b.text).toBe('98 % polyester, 1 % elastane, 1 % polyamide');
+    expect(b.notes.filter((n) => n.includes('shown as 1 %'))).toEqual([expect.stringContaining('polyamide')]);
   });
 
   it("'100 %' only for a product of one fibre (Art. 7(1)); cationic-dyeable polyester is still polyester", () => {
@@ -236,6 +254,23 @@ describe('contentLabel: US (16 CFR Part 303)', () => {
   it('notes a share within the 3-point tolerance (§303.43, from memory) of the 5 % threshold', () => {
     const label = contentLabel({ polyester: 0.93, polyamide: 0.07 }, 'us');
     expect(label.notes.some((n) => n.includes('nylon') && n.includes('303.43'))).toBe(true);
+  });
+
+  it('no threshold note for a fibre named for its functional significance (its line does not change at 5 %)', () => {
+    const named = contentLabel({ polyamide: 0.96, elastane: 0.04 }, 'us');
+    expect(named.notes.some((n) => n.includes('spandex at') && n.includes('303.43'))).toBe(false);
+    const grouped = contentLabel({ polyamide: 0.96, elastane: 0.04 }, 'us', { functionalFibres: [] });
+    expect(grouped.notes.some((n) => n.includes('spandex at') && n.includes('303.43'))).toBe(true);
+  });
+
+  it("the functional-significance note gives 'stretch' as the reason only for an elastomeric fibre", () => {
+    const stretch = contentLabel({ polyamide: 0.96, elastane: 0.04 }, 'us');
+    expect(stretch.notes.join('\n')).toMatch(/spandex at 4\.0 % is under 5 % but named for its functional significance \(stretch\)/);
+    const wool = contentLabel({ polyamide: 0.96, wool: 0.04 }, 'us', { functionalFibres: ['wool'] });
+    expect(wool.text).toBe('96% nylon, 4% wool');
+    const note = wool.notes.find((n) => n.includes('wool at'));
+    expect(note).toMatch(/functional significance under 16 CFR 303\.3\(a\)/);
+    expect(note).not.toMatch(/stretch/);
   });
 
   it("'100%' for one fibre (§303.27)", () => {
@@ -393,7 +428,8 @@ describe('worked label cases, from the stitch raster to the label', () => {
     const us = contentLabel(s, 'us');
     expect(us.text).toBe('54% polyester, 43% nylon, 3% spandex');
     expect(us.notes.join('\n')).toMatch(/functional significance/);
-    expect(us.notes.join('\n')).toMatch(/303\.43/); // 3.05 % is within 3 points of 5 %
+    // 3.05 % is within 3 points of 5 %, but spandex named for its function keeps its line either side.
+    expect(us.notes.some((n) => n.includes('spandex at') && n.includes('303.43'))).toBe(false);
     expect(contentLabel(s, 'eu').text).toBe('54 % polyester, 43 % polyamide, 3 % elastane');
   });
 });
