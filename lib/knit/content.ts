@@ -198,7 +198,8 @@ export const labelCaution =
  * Whole percentages that sum to 100, by the largest-remainder method: floor every value, then give
  * the remaining points to the largest remainders (ties to the larger value, then the earlier entry).
  * With `minimumOne`, an entry above zero that would round to 0 gets 1 point, taken from the entry that
- * was rounded up the most (or else the largest).
+ * was rounded up the most (ties to the larger, then the later entry). Values equal within float error
+ * count as ties.
  */
 export function largestRemainderPercents(values: readonly number[], minimumOne = false): number[] {
   return roundPercents(values, minimumOne).percents;
@@ -214,7 +215,8 @@ function roundPercents(values: readonly number[], minimumOne: boolean): { percen
   let left = 100 - out.reduce((s, v) => s + v, 0);
   const order = exact
     .map((e, i) => ({ i, r: e - Math.floor(e), e }))
-    .sort((p, q) => q.r - p.r || q.e - p.e || p.i - q.i);
+    // Equal within float error counts as a tie, so equal shares from grams round the same way.
+    .sort((p, q) => compareShares(q.r, p.r) || compareShares(q.e, p.e) || p.i - q.i);
   for (let k = 0; left > 0 && k < order.length; k++, left--) {
     const i = (order[k] as { i: number }).i;
     out[i] = (out[i] as number) + 1;
@@ -227,7 +229,10 @@ function roundPercents(values: readonly number[], minimumOne: boolean): { percen
       for (let j = 0; j < out.length; j++) {
         if ((out[j] as number) <= 1) continue;
         const up = (out[j] as number) - (exact[j] as number);
-        if (up > best || (up === best && (out[j] as number) > (out[donor] ?? 0))) {
+        // Ties (within float error) go to the larger entry, then the later one, so that equal
+        // shares keep the earlier line at least as high as the later.
+        const vs = compareShares(up, best);
+        if (vs > 0 || (vs === 0 && (out[j] as number) >= (out[donor] ?? 0))) {
           best = up;
           donor = j;
         }
@@ -261,7 +266,8 @@ const pct = (share: number) => `${(share * 100).toFixed(1)} %`;
 /**
  * The fibre-content label for a region, from shares per fibre (any scale; normalised to 1).
  * Names: EU Annex I / US §303.7 (fibres with the same label name are added together). Order:
- * descending (EU Art. 9(1); US §303.42(a) 'order of predominance'), with 'other fibres' last.
+ * descending (EU Art. 9(1); US §303.42(a) 'order of predominance'); the EU 'other fibres' line by its
+ * percentage, the US 'other fiber(s)' line last (§303.42(a)).
  * Percentages: whole numbers summing to 100 by largest remainder; a fibre present is never shown
  * as 0 %. Small shares: EU names every fibre unless `otherFibres` (Art. 9(2)); US groups fibres
  * under 5 % as 'other fiber(s)' (§303.6, §303.42(a)) except functionally significant ones
@@ -281,7 +287,7 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
     g.fibres.push(e.fibre);
     groups.set(name, g);
   }
-  const named = [...groups.values()].sort((p, q) => q.share - p.share || p.name.localeCompare(q.name));
+  const named = [...groups.values()].sort((p, q) => compareShares(q.share, p.share) || p.name.localeCompare(q.name));
 
   let other: { share: number; fibres: FibreId[]; names: string[] } | undefined;
   const tolerance = region === 'eu' ? EU_TOLERANCE_PCT : US_TOLERANCE_PCT;
@@ -290,7 +296,11 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
   switch (region) {
     case 'eu': {
       if (opts.otherFibres) {
-        const small = named.filter((g) => compareShares(g.share, SMALL_SHARE_THRESHOLD) <= 0).sort((p, q) => p.share - q.share);
+        // Smallest shares are grouped first (ties by name), as many as fit in 15 %: the choice of
+        // which fibres stay named is the same for the same shares, and the larger ones stay named.
+        const small = named
+          .filter((g) => compareShares(g.share, SMALL_SHARE_THRESHOLD) <= 0)
+          .sort((p, q) => compareShares(p.share, q.share) || p.name.localeCompare(q.name));
         let sum = 0;
         const grouped: typeof small = [];
         for (const g of small) {
@@ -363,6 +373,17 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
   if (other) {
     const otherName = region === 'eu' ? 'other fibres' : other.names.length === 1 ? 'other fiber' : 'other fibers';
     rows.push({ name: otherName, share: other.share, fibres: other.fibres, other: true });
+  }
+  switch (region) {
+    case 'eu':
+      // Art. 9(1) puts all constituent fibres in descending order; Art. 9(2) says only that 'other
+      // fibres' is preceded or followed by its total percentage, nothing of where the line goes. So
+      // it takes its place by its percentage, after a named fibre of the same share.
+      rows.sort((p, q) => compareShares(q.share, p.share) || Number(p.other) - Number(q.other));
+      break;
+    case 'us':
+      // §303.42(a): 'other fiber(s)' follows the named fibres.
+      break;
   }
   const { percents, raisedToOne } = roundPercents(
     rows.map((r) => r.share),

@@ -14,6 +14,7 @@ import {
   largestRemainderPercents,
   labelCaution,
   type FibreShares,
+  type LabelLine,
 } from '@/lib/knit/content';
 
 const yarn = (id: string, dtex: number, fibre: FibreId, extra: Partial<Yarn> = {}): Yarn => ({
@@ -193,6 +194,16 @@ describe('contentLabel: EU (Regulation (EU) No 1007/2011)', () => {
     expect(label.lines.reduce((s, l) => s + l.percent, 0)).toBe(100);
   });
 
+  it("'other fibres' takes its place by percentage (Art. 9(1) descending order); the smallest shares are grouped first, ties by name", () => {
+    const label = contentLabel({ polyester: 0.8, polyamide: 0.05, acrylic: 0.05, cotton: 0.05, wool: 0.05 }, 'eu', { otherFibres: true });
+    expect(label.text).toBe('80 % polyester, 15 % other fibres, 5 % wool');
+    expect(label.lines.find((l) => l.other)?.fibres).toEqual(['acrylic', 'cotton', 'polyamide']);
+    // 4 + 4 + 5 + 5: the two 4 % fibres, then cotton (before polyamide by name), fit in 15 %: 13 %.
+    const mixed = contentLabel({ polyester: 0.82, polyamide: 0.05, cotton: 0.05, acrylic: 0.04, wool: 0.04 }, 'eu', { otherFibres: true });
+    expect(mixed.text).toBe('82 % polyester, 13 % other fibres, 5 % polyamide');
+    expect(mixed.lines.find((l) => l.other)?.fibres).toEqual(['acrylic', 'wool', 'cotton']);
+  });
+
   it("notes a fibre grouped as 'other fibres' within the 3 % manufacturing tolerance (Art. 20(3)) of the 5 % limit", () => {
     const near = contentLabel({ polyester: 0.96, elastane: 0.04 }, 'eu', { otherFibres: true });
     expect(near.notes.some((n) => n.includes('elastane at') && n.includes('Art. 20(3)'))).toBe(true);
@@ -309,7 +320,7 @@ describe('contentLabel: a share exactly at a threshold, computed from grams', ()
 });
 
 describe('contentLabel: properties', () => {
-  it('percentages sum to 100, lines descend (other last), every fibre is accounted for', () => {
+  it("percentages sum to 100, lines descend (EU 'other fibres' by its share, US 'other fiber(s)' last), every fibre is accounted for", () => {
     const fibre = fc.constantFrom(...fibreIds);
     fc.assert(
       fc.property(
@@ -319,12 +330,16 @@ describe('contentLabel: properties', () => {
         (shares, region, otherFibres) => {
           const label = contentLabel(shares as FibreShares, region, { otherFibres });
           expect(label.lines.reduce((s, l) => s + l.percent, 0)).toBe(100);
-          const named = label.lines.filter((l) => !l.other);
-          for (let i = 1; i < named.length; i++) {
-            expect((named[i - 1] as { exactPercent: number }).exactPercent).toBeGreaterThanOrEqual((named[i] as { exactPercent: number }).exactPercent);
+          // EU Art. 9(1): every line, 'other fibres' included, in descending order.
+          // US §303.42(a): named fibres by predominance, then 'other fiber(s)'.
+          const ordered = region === 'eu' ? label.lines : label.lines.filter((l) => !l.other);
+          for (let i = 1; i < ordered.length; i++) {
+            const [before, after] = [ordered[i - 1] as LabelLine, ordered[i] as LabelLine];
+            expect(before.exactPercent).toBeGreaterThanOrEqual(after.exactPercent - 1e-7);
+            expect(before.percent).toBeGreaterThanOrEqual(after.percent);
           }
           const otherAt = label.lines.findIndex((l) => l.other);
-          if (otherAt >= 0) expect(otherAt).toBe(label.lines.length - 1);
+          if (otherAt >= 0 && region === 'us') expect(otherAt).toBe(label.lines.length - 1);
           expect(label.lines.flatMap((l) => l.fibres).sort()).toEqual(Object.keys(shares).sort());
           expect(label.lines.every((l) => l.percent >= 1)).toBe(true);
         },
