@@ -155,9 +155,11 @@ export interface ContentLabel {
 
 export interface ContentLabelOptions {
   /**
-   * EU only: group fibres of up to 5 % each and up to 15 % together as 'other fibres'
-   * (Art. 9(2), allowed where they cannot easily be stated at manufacture). Default false: every
-   * fibre is named (Art. 9(1)).
+   * EU only: group small fibres as 'other fibres' (Art. 9(2), allowed where they cannot easily be
+   * stated at the time of manufacture). Art. 9(2) reads "a fibre which accounts for up to 5 % …, or
+   * fibres which collectively account for up to 15 %"; Needlemap applies the cautious reading of both
+   * together: each grouped fibre at most 5 % and all of them at most 15 %. Default false: every fibre
+   * is named (Art. 9(1)).
    */
   otherFibres?: boolean;
   /**
@@ -312,7 +314,7 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
         if (grouped.length > 0 && grouped.length < named.length) {
           other = { share: sum, fibres: grouped.flatMap((g) => g.fibres), names: grouped.map((g) => g.name) };
           notes.push(
-            `'other fibres' (${grouped.map((g) => `${g.name} ${pct(g.share)}`).join(', ')}): allowed for fibres of up to 5 % each and up to 15 % together only where they cannot easily be stated at the time of manufacture (Reg. (EU) 1007/2011 Art. 9(2)).`,
+            `'other fibres' (${grouped.map((g) => `${g.name} ${pct(g.share)}`).join(', ')}): Reg. (EU) 1007/2011 Art. 9(2) allows it for "a fibre which accounts for up to 5 %" or "fibres which collectively account for up to 15 %", and only where they cannot easily be stated at the time of manufacture. Needlemap applies the cautious reading: each grouped fibre at most 5 % and all of them at most 15 % together.`,
           );
           if (nearThreshold(sum, EU_OTHER_FIBRES_TOTAL)) {
             notes.push(

@@ -180,6 +180,11 @@ describe('contentLabel: EU (Regulation (EU) No 1007/2011)', () => {
     expect(grouped.text).toBe('90 % polyester, 6 % polyamide, 4 % other fibres');
     expect(grouped.lines.at(-1)).toMatchObject({ name: 'other fibres', other: true, fibres: ['elastane'] });
     expect(grouped.notes.join('\n')).toMatch(/Art\. 9\(2\)/);
+    // The note quotes Art. 9(2) (references.md §2(b)) and says which reading is applied, not that it is the law.
+    const note = grouped.notes.find((n) => n.startsWith("'other fibres' (")) ?? '';
+    expect(note).toContain('"a fibre which accounts for up to 5 %" or "fibres which collectively account for up to 15 %"');
+    expect(note).toMatch(/applies the cautious reading/);
+    expect(note).not.toMatch(/allowed for fibres of up to 5 % each and up to 15 % together/);
   });
 
   it("'other fibres': up to 5 % each (5 % itself included) and up to 15 % together", () => {
