@@ -12,7 +12,7 @@
  * A computed label is a statement from nominal data: it must be confirmed by a fibre analysis
  * (e.g. the ISO 1833 methods) before the garment is sold.
  */
-import { euAllowancePct, fibres, isFibreId, type FibreId } from './fibres';
+import { euAllowancePct, fibres, isFibreId, type Fibre, type FibreId } from './fibres';
 import { isStapleFibre, requireYarn, yarnMap, type YarnLookup } from './yarn';
 
 /** Mass fraction per fibre; the values sum to 1. */
@@ -265,6 +265,47 @@ function normalise(shares: FibreShares): { fibre: FibreId; share: number }[] {
 
 const pct = (share: number) => `${(share * 100).toFixed(1)} %`;
 
+interface NameGroup {
+  name: string;
+  share: number;
+  fibres: FibreId[];
+}
+
+/** Descending by share, ties by name. */
+function sortGroups(groups: NameGroup[]): NameGroup[] {
+  return groups.sort((p, q) => compareShares(q.share, p.share) || p.name.localeCompare(q.name));
+}
+
+/**
+ * US: the 5 % rule of 16 CFR 303.6 is about generic fibres, so members of one generic (viscose,
+ * modal and lyocell are rayon) count together. Each keeps its own name only if every member is
+ * 5 % or more; otherwise they are one line under the generic name. A fibre named for its
+ * functional significance (§303.3(a)) keeps its own line.
+ */
+function joinUsGenerics(named: NameGroup[], isFunctional: (g: NameGroup) => boolean, notes: string[]): NameGroup[] {
+  const generic = (g: NameGroup) => {
+    const first: Fibre = fibres[g.fibres[0] as FibreId];
+    return first.names.usGeneric ?? g.name;
+  };
+  const members = new Map<string, NameGroup[]>();
+  for (const g of named) {
+    if (isFunctional(g)) continue;
+    const list = members.get(generic(g)) ?? [];
+    list.push(g);
+    members.set(generic(g), list);
+  }
+  let out = named;
+  for (const [name, list] of members) {
+    if (list.length < 2 || list.every((g) => compareShares(g.share, SMALL_SHARE_THRESHOLD) >= 0)) continue;
+    const joined: NameGroup = { name, share: list.reduce((s, g) => s + g.share, 0), fibres: list.flatMap((g) => g.fibres) };
+    out = [...out.filter((g) => !list.includes(g)), joined];
+    notes.push(
+      `${list.map((g) => `${g.name} ${pct(g.share)}`).join(', ')}: all ${name} under 16 CFR 303.7 (from memory), not each 5 % or more, so labelled together as ${name} (§303.6).`,
+    );
+  }
+  return out === named ? named : sortGroups(out);
+}
+
 /**
  * The fibre-content label for a region, from shares per fibre (any scale; normalised to 1).
  * Names: EU Annex I / US §303.7 (fibres with the same label name are added together). Order:
@@ -281,7 +322,7 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
   const notes: string[] = [];
 
   // Group by the region's name.
-  const groups = new Map<string, { name: string; share: number; fibres: FibreId[] }>();
+  const groups = new Map<string, NameGroup>();
   for (const e of entries) {
     const name = fibres[e.fibre].names[region];
     const g = groups.get(name) ?? { name, share: 0, fibres: [] };
@@ -289,7 +330,7 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
     g.fibres.push(e.fibre);
     groups.set(name, g);
   }
-  const named = [...groups.values()].sort((p, q) => compareShares(q.share, p.share) || p.name.localeCompare(q.name));
+  let named = sortGroups([...groups.values()]);
 
   let other: { share: number; fibres: FibreId[]; names: string[] } | undefined;
   const tolerance = region === 'eu' ? EU_TOLERANCE_PCT : US_TOLERANCE_PCT;
@@ -339,6 +380,7 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
         opts.functionalFibres ?? entries.filter((e) => fibres[e.fibre].kind === 'elastomeric').map((e) => e.fibre),
       );
       const isFunctional = (g: { fibres: FibreId[] }) => g.fibres.every((f) => functional.has(f));
+      named = joinUsGenerics(named, isFunctional, notes);
       const small = named.filter((g) => compareShares(g.share, SMALL_SHARE_THRESHOLD) < 0);
       const grouped = small.filter((g) => !isFunctional(g));
       for (const g of small) {

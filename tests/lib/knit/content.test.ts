@@ -289,6 +289,22 @@ describe('contentLabel: US (16 CFR Part 303)', () => {
     expect(note).not.toMatch(/stretch/);
   });
 
+  it('viscose, modal and lyocell count together as rayon for the 5 % rule (§303.6; rayon family from memory)', () => {
+    const joined = contentLabel({ polyester: 0.94, viscose: 0.03, modal: 0.03 }, 'us');
+    expect(joined.text).toBe('94% polyester, 6% rayon');
+    expect([...(joined.lines[1]?.fibres ?? [])].sort()).toEqual(['modal', 'viscose']);
+    expect(joined.notes.join('\n')).toMatch(/labelled together as rayon/);
+    // One member under 5 %: the whole family is rayon (9 %), not "6% modal" beside an 'other fiber'.
+    expect(contentLabel({ polyester: 0.91, modal: 0.06, viscose: 0.03 }, 'us').text).toBe('91% polyester, 9% rayon');
+    expect(contentLabel({ polyester: 0.92, lyocell: 0.04, modal: 0.04 }, 'us').text).toBe('92% polyester, 8% rayon');
+    // Every member 5 % or more: each keeps its own permitted name.
+    expect(contentLabel({ polyester: 0.84, modal: 0.1, lyocell: 0.06 }, 'us').text).toBe('84% polyester, 10% modal, 6% lyocell');
+    // Together still under 5 %: 'other fiber'.
+    expect(contentLabel({ polyester: 0.96, viscose: 0.02, modal: 0.02 }, 'us').text).toBe('96% polyester, 4% other fiber');
+    // EU names stay apart (Annex I Nos 22, 25, 33).
+    expect(contentLabel({ polyester: 0.94, viscose: 0.03, modal: 0.03 }, 'eu').text).toBe('94 % polyester, 3 % modal, 3 % viscose');
+  });
+
   it("'100%' for one fibre (§303.27)", () => {
     const label = contentLabel({ polyamide: 1 }, 'us');
     expect(label.text).toBe('100% nylon');
