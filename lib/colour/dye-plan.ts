@@ -387,7 +387,9 @@ function stainFindings(bath: DyeBath, exposed: readonly Yarn[], findings: DyeFin
       'shifts their shade and washes out poorly.',
     instead:
       bath.dyeClass === 'disperse'
-        ? 'Clear the disperse dye off after dyeing (reduction clearing) and choose low-staining disperse dyes.'
+        ? 'Clear the disperse dye off after dyeing (reduction clearing) and choose low-staining disperse dyes.' +
+          // From memory: an alkaline reduction clear damages wool.
+          (which.includes('wool') ? ' Clear wool blends mildly, not in a hot alkaline reduction bath.' : '')
         : bath.dyeClass === 'cationic'
           ? 'Add a reserving agent for the polyamide to the cationic bath, choose cationic dyes that stain polyamide little, and clear after dyeing.'
           : `Choose ${bath.dyeClass} dyes of low staining and clear after dyeing.`,
@@ -403,6 +405,7 @@ function heatFindings(bath: DyeBath, exposed: readonly Yarn[], findings: DyeFind
   if (hurt.length === 0) return;
   const hurtYarns = exposed.filter((y) => fibresOf(y).some((f) => hurt.includes(f)));
   const limits = hurt.map((f) => `${f} ${fibre(f).wetLimitC} °C`).join(', ');
+  const harm = hurt.map((f) => `the ${f} ${fibre(f).wetLimitHarm ?? 'is damaged'}`).join('; ');
   findings.push({
     kind: 'heat-limit',
     severity: 'error',
@@ -410,7 +413,7 @@ function heatFindings(bath: DyeBath, exposed: readonly Yarn[], findings: DyeFind
     targetIds: [bath.targetId],
     message:
       `The ${bath.dyeClass} bath runs at ${bath.temperatureC} °C, above the wet limit of ` +
-      `${limits} in ${names(hurtYarns)}: it loses stretch and recovery.`,
+      `${limits} in ${names(hurtYarns)}: ${harm}.`,
     instead:
       bath.dyeClass === 'disperse'
         ? 'Dye at a lower temperature with disperse dyes made for it, or use a dope-dyed or yarn-dyed polyester so the garment needs no hot bath.'
