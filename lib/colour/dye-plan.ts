@@ -447,14 +447,18 @@ function overdyeFindings(
   }
 }
 
-/** Grin-through: bare elastane (or another fibre that takes little dye) stays pale where it shows. */
+/**
+ * Grin-through: bare elastane (or another fibre that takes little dye) stays pale where it shows.
+ * Judged whenever the garment shows a coloured tone — a bath's colour or a yarn that comes coloured
+ * (a dope-dyed black ground with raw-white elastane grins through worst, with no bath at all).
+ */
 function grinThroughFindings(
   baths: readonly DyeBath[],
   all: readonly Yarn[],
   share: number,
   findings: DyeFinding[],
 ): void {
-  if (baths.length === 0) return;
+  if (baths.length === 0 && !all.some(isPrecoloured)) return;
   const pale = all.filter(
     (y) =>
       y.colour.state === 'dyeable' &&

@@ -266,6 +266,22 @@ describe('planDyeing, garment-dyed', () => {
     expect(kinds(relaxed)).not.toContain('low-contrast');
   });
 
+  // Product design §8: elastane takes little dye; a raw-white elastane shows most under a dark
+  // ground (common practice, no published source). A dope-dyed ground needs no bath, and still shows it.
+  it('finds the grin-through of bare elastane under a dope-dyed black polyester, with no bath at all', () => {
+    const black = yarn('pes-black', [['polyester', 1]], { state: 'dope-dyed', lab: { L: 18, a: 0, b: -1 } });
+    const plan = planDyeing({ yarns: [black, el], targets: [], route: 'garment-dyed' });
+    expect(plan.baths).toEqual([]);
+    const grin = plan.findings.filter((f) => f.kind === 'grin-through');
+    expect(grin).toHaveLength(1);
+    expect(grin[0]?.yarnIds).toEqual(['el']);
+  });
+
+  it('finds no grin-through while nothing in the garment is coloured', () => {
+    const plan = planDyeing({ yarns: [pes, el], targets: [], route: 'garment-dyed' });
+    expect(plan.findings).toEqual([]);
+  });
+
   it('refuses a target that names an unknown yarn', () => {
     expect(() => planDyeing({ yarns: [pa], targets: [target('a', ['nope'], navy)], route: 'garment-dyed' })).toThrow(/nope/);
   });
