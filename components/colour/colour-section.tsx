@@ -207,6 +207,17 @@ function TargetList({ targets, yarns, showTolerance }: { targets: readonly Colou
             <div className="font-medium">
               {t.name}
               {t.standardName ? <span className="ml-2 font-normal text-ink-soft">{t.standardName}</span> : null}
+              {t.approval === 'changed-since-approval' ? (
+                <span
+                  data-approval="changed-since-approval"
+                  title="A lab dip was approved against another colour; the client does not see this target until a dip of the current colour is approved."
+                  className="ml-2 rounded px-1.5 py-0.5 text-xs font-medium bg-ochre-50 text-ochre-700 ring-1 ring-ochre-500/25"
+                >
+                  Changed since approval
+                </span>
+              ) : t.approval === 'approved' ? (
+                <span data-approval="approved" className="ml-2 rounded px-1.5 py-0.5 text-xs font-medium bg-spruce-600 text-white">Approved</span>
+              ) : null}
             </div>
             <div className="figures text-xs text-ink-soft">L* a* b* {fmtLab(t.colour)}</div>
             <div className="text-xs text-ink-soft">
