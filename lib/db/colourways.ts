@@ -72,6 +72,8 @@ export interface StudioColourSettings {
   tolerance: LabDipTolerance;
   /** Two tones closer than this ΔE00 will not read as two. */
   lowContrastDeltaE: number;
+  /** The settings the studio has not set, which take the product default. */
+  defaults: ('tolerance' | 'lowContrastDeltaE')[];
 }
 
 interface ColourwayRow {
@@ -97,8 +99,12 @@ export async function studioColourSettings(studioId: string, q: Db = db()): Prom
         ? { formula: 'de2000', max: t.max }
         : { formula: 'cmc', l: typeof t.l === 'number' ? t.l : 2, c: typeof t.c === 'number' ? t.c : 1, max: t.max };
   }
-  const low = typeof s.lowContrastDeltaE === 'number' && s.lowContrastDeltaE > 0 ? s.lowContrastDeltaE : defaultLowContrastDeltaE;
-  return { tolerance, lowContrastDeltaE: low };
+  const setLow = typeof s.lowContrastDeltaE === 'number' && s.lowContrastDeltaE > 0;
+  const low = setLow ? (s.lowContrastDeltaE as number) : defaultLowContrastDeltaE;
+  const defaults: StudioColourSettings['defaults'] = [];
+  if (tolerance === defaultLabDipTolerance) defaults.push('tolerance');
+  if (!setLow) defaults.push('lowContrastDeltaE');
+  return { tolerance, lowContrastDeltaE: low, defaults };
 }
 
 /** The yarns of the style's textures, with the textures that use each. */
