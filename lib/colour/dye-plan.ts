@@ -33,8 +33,8 @@ export type DurationClass = 'short' | 'standard' | 'long';
 export interface BathProfile {
   temperatureC: number;
   durationClass: DurationClass;
-  /** Where the temperature comes from, in the terms of references.md. */
-  status: 'verified-2nd' | 'memory';
+  /** Where the temperature comes from, in the terms of references.md (or common practice). */
+  status: 'verified-2nd' | 'common-practice' | 'memory';
 }
 
 /**
@@ -42,7 +42,8 @@ export interface BathProfile {
  * - disperse 130 °C: "a dyeing temperature of 130 °C (266 °F) is required, and a pressurized
  *   dyebath is used" (an encyclopedia article on dyes, read in a secondary copy; references.md §8,
  *   verified-2nd).
- * - acid ~98 °C at the boil, pH 4.5–6 (references.md §8, from memory).
+ * - acid 98 °C: common practice, no published source — polyamide is dyed with acid dyes at or near
+ *   the boil (references.md §8 gives ~98–100 °C, pH 4.5–6, from memory).
  * - cationic at the boil, reactive 60 °C, direct 90 °C, vat 60 °C: from memory.
  * Duration classes: common practice, no published source (pressure dyeing and wash-off make a bath
  * long).
@@ -50,7 +51,7 @@ export interface BathProfile {
 export const bathProfiles: Readonly<Record<DyeClass, BathProfile>> = {
   disperse: { temperatureC: 130, durationClass: 'long', status: 'verified-2nd' },
   cationic: { temperatureC: 100, durationClass: 'standard', status: 'memory' },
-  acid: { temperatureC: 98, durationClass: 'standard', status: 'memory' },
+  acid: { temperatureC: 98, durationClass: 'standard', status: 'common-practice' },
   direct: { temperatureC: 90, durationClass: 'short', status: 'memory' },
   reactive: { temperatureC: 60, durationClass: 'long', status: 'memory' },
   vat: { temperatureC: 60, durationClass: 'long', status: 'memory' },

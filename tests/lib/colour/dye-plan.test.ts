@@ -77,9 +77,10 @@ describe('planDyeing, garment-dyed', () => {
     expect(plan.findings.find((f) => f.kind === 'grin-through')?.yarnIds).toEqual(['el']);
   });
 
-  // Polyamide/elastane in one colour: acid bath at about 98 °C (from memory, references.md §8) is
-  // below elastane's wet limit in the fibre registry, so no heat finding; bare elastane takes little
-  // dye (product design §8) and grins through.
+  // Polyamide/elastane in one colour: the acid bath at 98 °C (common practice, no published source:
+  // polyamide is dyed with acid dyes at or near the boil) is below elastane's wet limit in the fibre
+  // registry (120 °C, from memory), so no heat finding; bare elastane takes little dye (product
+  // design §8) and grins through.
   it('dyes polyamide + elastane in one acid bath at 98 °C without a heat finding', () => {
     const plan = planDyeing({ yarns: [pa, el], targets: [target('body', ['pa', 'el'], navy)], route: 'garment-dyed' });
     expect(plan.baths).toHaveLength(1);
@@ -104,8 +105,9 @@ describe('planDyeing, garment-dyed', () => {
   });
 
   // Wool + polyester two-tone: the polyester needs the disperse bath at 130 °C (references.md §8,
-  // verified-2nd); wool is dyed at the boil and yellows and weakens in long baths well above it, and
-  // disperse dyes stain it (both from memory, fibre registry wetLimitC 105 °C).
+  // verified-2nd); wool is dyed at the boil and yellows and weakens in long baths well above it
+  // (common practice, no published source; registry wetLimitC 105 °C), and disperse dyes stain it
+  // (from memory).
   it('flags the heat limit and the disperse stain on the wool of a wool + polyester two-tone at 130 °C', () => {
     const plan = planDyeing({ yarns: [wool, pes], targets: [target('a', ['wool'], red), target('b', ['pes'], navy)], route: 'garment-dyed' });
     expect(plan.baths.map((b) => [b.dyeClass, b.temperatureC])).toEqual([
@@ -158,7 +160,7 @@ describe('planDyeing, garment-dyed', () => {
   });
 
   // Their own baths stay within the limits: wool in acid at about 98 °C, acrylic in cationic at the
-  // boil (references.md §8 and the bath profiles, from memory).
+  // boil (bath profiles: acid 98 °C common practice, cationic 100 °C from memory).
   it('finds no heat limit for wool in its acid bath or acrylic in its cationic bath', () => {
     const pan = yarn('pan', [['acrylic', 1]]);
     for (const y of [wool, pan]) {
