@@ -247,11 +247,16 @@ describe('colourways', () => {
     expect(moved.json.colourway.targets.map((t: { approval: string }) => t.approval)).toEqual(['changed-since-approval', 'open']);
     expect((await client.get(path)).status).toBe(404);
     expect((await client.get(`/api/styles/${ridgeId}/colourways`)).json.colourways.map((c: { id: string }) => c.id)).not.toContain(cw.id);
+    // Its approved dip was of another colour: withheld too.
+    expect((await client.get(`/api/styles/${ridgeId}/lab-dips`)).json.labDips.map((d: { id: string }) => d.id)).not.toContain(dip.id);
+    expect((await client.get(`/api/styles/${ridgeId}/lab-dips/${dip.id}`)).status).toBe(404);
+    expect((await lead.get(`/api/styles/${ridgeId}/lab-dips/${dip.id}`)).json.labDip.status).toBe('approved');
 
     // Back to the colour the dip was judged against: approved again.
     const back = await edit(navy, moved.json.colourway.version);
     expect(back.json.colourway.targets[0].approval).toBe('approved');
     expect((await client.get(path)).json.colourway.targets[0].colour).toEqual(navy);
+    expect((await client.get(`/api/styles/${ridgeId}/lab-dips/${dip.id}`)).status).toBe(200);
   });
 
   it('a target on a colour standard is withheld from the client once the standard’s colour is edited', async () => {
@@ -268,6 +273,7 @@ describe('colourways', () => {
     expect((await lead.patch(`/api/library/colour-standards/${standard.id}`, { version: standard.version, lab: { ...navy, L: navy.L + 0.5 } })).status).toBe(200);
     expect((await client.get(path)).status).toBe(404);
     expect((await lead.get(path)).json.colourway.targets[0].approval).toBe('changed-since-approval');
+    expect((await client.get(`/api/styles/${ridgeId}/lab-dips`)).json.labDips.map((d: { id: string }) => d.id)).not.toContain(dip.id);
   });
 
   it('DELETE archives the colourway: hidden, its dips no longer listed', async () => {
