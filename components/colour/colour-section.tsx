@@ -51,6 +51,8 @@ export function ColourSection({ styleId, can }: { styleId: string; can: ColourAb
   if (colourways.isLoading) return <div className="h-40 animate-pulse rounded-[var(--radius-card)] bg-rule/50" />;
   if (colourways.error) return <Notice tone="error">Could not load the colourways: {colourways.error.message}</Notice>;
 
+  // With the dye plan (studio staff) the preview shows the dyed result; the client sees targets only.
+  const previewColourway = current ? { targets: current.targets, plan: current.plan ?? undefined } : undefined;
   const previewCard = !can.preview ? null : (
     <Card title="On the body">
       {preview.map.data && preview.textures.data ? (
@@ -60,10 +62,10 @@ export function ColourSection({ styleId, can }: { styleId: string; can: ColourAb
               panels={preview.map.data.panels}
               textures={preview.textures.data.textures}
               yarns={preview.textures.data.yarns}
-              colourway={current ? { targets: current.targets } : undefined}
+              colourway={previewColourway}
             />
           </div>
-          <TextureFaceTiles textures={preview.textures.data.textures} yarns={preview.textures.data.yarns} colourway={current ? { targets: current.targets } : undefined} />
+          <TextureFaceTiles textures={preview.textures.data.textures} yarns={preview.textures.data.yarns} colourway={previewColourway} />
           <p className="text-2xs text-ink-faint">
             Screen preview: each zone shows the yarns on the face of its texture in this colourway; bare elastane stays pale. The dashed
             line is the cut.{can.client ? ' Yarns whose colour is not approved yet show undyed.' : ''}
@@ -207,6 +209,17 @@ function TargetList({ targets, yarns, showTolerance }: { targets: readonly Colou
             <div className="font-medium">
               {t.name}
               {t.standardName ? <span className="ml-2 font-normal text-ink-soft">{t.standardName}</span> : null}
+              {t.approval === 'changed-since-approval' ? (
+                <span
+                  data-approval="changed-since-approval"
+                  title="A lab dip was approved against another colour; the client does not see this target until a dip of the current colour is approved."
+                  className="ml-2 rounded px-1.5 py-0.5 text-xs font-medium bg-ochre-50 text-ochre-700 ring-1 ring-ochre-500/25"
+                >
+                  Changed since approval
+                </span>
+              ) : t.approval === 'approved' ? (
+                <span data-approval="approved" className="ml-2 rounded px-1.5 py-0.5 text-xs font-medium bg-spruce-600 text-white">Approved</span>
+              ) : null}
             </div>
             <div className="figures text-xs text-ink-soft">L* a* b* {fmtLab(t.colour)}</div>
             <div className="text-xs text-ink-soft">

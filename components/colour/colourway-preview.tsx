@@ -4,7 +4,7 @@ import { useId, useMemo } from 'react';
 import { average, formatHex } from 'culori';
 import { layoutPanels, zonesInDrawOrder, type TextureLookup } from '@/lib/editor';
 import { faceYarnGrid } from '@/lib/knit/face';
-import { yarnColourMap, type Colourway as RenderColourway } from '@/lib/knit/render';
+import { yarnColourMap, yarnLooks, type Colourway as RenderColourway, type YarnLook } from '@/lib/knit/render';
 import type { Panel, StitchPolygon } from '@/lib/knit/panel';
 import type { Texture } from '@/lib/knit/texture';
 import type { Yarn } from '@/lib/knit/yarn';
@@ -88,7 +88,8 @@ export function ColourwayPreview({
   widthPx?: number;
 }) {
   const uid = useId().replace(/:/g, '');
-  const colours = useMemo(() => yarnColourMap(yarns, colourway), [yarns, colourway]);
+  const looks = useMemo(() => yarnLooks(yarns, colourway), [yarns, colourway]);
+  const colours = useMemo(() => Object.fromEntries(Object.entries(looks).map(([id, l]) => [id, l.hex])), [looks]);
   const lookup: TextureLookup = useMemo(
     () =>
       Object.fromEntries(
@@ -115,6 +116,7 @@ export function ColourwayPreview({
   };
 
   return (
+    <div className="w-full">
     <svg
       role="img"
       aria-label={`Body map in this colourway: ${panels.map((p) => p.name).join(', ')}`}
@@ -160,6 +162,34 @@ export function ColourwayPreview({
         );
       })}
     </svg>
+    <LookMarks yarns={yarns} looks={looks} />
+    </div>
+  );
+}
+
+const markText: Partial<Record<YarnLook['source'], string>> = {
+  undyeable: 'has a target but takes no dye: shown undyed',
+  bath: 'no target of its own: shown in the colour of the garment bath that dyes it',
+  'no-target': 'no target, and no bath dyes it: shown undyed',
+};
+
+/** The yarns whose preview colour is not simply their target or their own colour, and why. */
+function LookMarks({ yarns, looks }: { yarns: readonly Yarn[]; looks: Readonly<Record<string, YarnLook>> }) {
+  const marked = yarns.flatMap((y) => {
+    const l = looks[y.id];
+    const text = l ? markText[l.source] : undefined;
+    return l && text ? [{ yarn: y, look: l, text }] : [];
+  });
+  if (marked.length === 0) return null;
+  return (
+    <ul className="mt-2 space-y-1 text-2xs text-ink-soft" data-testid="preview-marks">
+      {marked.map(({ yarn, look, text }) => (
+        <li key={yarn.id} data-source={look.source} className="flex items-center gap-1.5">
+          <span aria-hidden className="inline-block h-2.5 w-2.5 shrink-0 rounded-[2px] ring-1 ring-inset ring-black/15" style={{ backgroundColor: look.hex }} />
+          <span><span className="font-medium text-ink">{yarn.name}</span>: {text}</span>
+        </li>
+      ))}
+    </ul>
   );
 }
 

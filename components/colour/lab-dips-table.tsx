@@ -19,7 +19,8 @@ const statusStyle: Record<LabDipStatus, string> = {
 };
 const statusLabels: Record<LabDipStatus, string> = { submitted: 'Awaiting decision', approved: 'Approved', rejected: 'Rejected' };
 
-const toleranceLabel = (t: LabDipTolerance) => (t.formula === 'cmc' ? `CMC(${t.l}:${t.c}) ≤ ${t.max.toFixed(2)}` : `ΔE00 ≤ ${t.max.toFixed(2)}`);
+const formulaLabel = (t: LabDipTolerance) => (t.formula === 'cmc' ? `CMC(${t.l}:${t.c})` : 'ΔE00');
+const toleranceLabel = (t: LabDipTolerance) => `${formulaLabel(t)} ≤ ${t.max.toFixed(2)}`;
 const signed = (n: number) => `${n >= 0 ? '+' : '−'}${Math.abs(n).toFixed(2)}`;
 
 const col = createColumnHelper<LabDip>();
@@ -61,20 +62,28 @@ export function LabDipsTable({
           </div>
         ),
       }),
-      col.accessor((d) => d.reading.deltaECMC21, {
-        id: 'cmc',
-        header: 'ΔE CMC(2:1)',
+      // The verdict and its number come from one formula, the tolerance's own; the other formula
+      // is shown beside it for reference.
+      col.accessor((d) => d.reading.deltaE, {
+        id: 'deltaE',
+        header: 'ΔE (tolerance)',
         cell: ({ row: { original: d } }) => (
-          <div className="leading-tight">
-            <div className={`figures text-sm font-semibold ${d.reading.pass ? 'text-spruce-700' : 'text-madder-700'}`}>{d.reading.deltaECMC21.toFixed(2)}</div>
+          <div className="leading-tight" data-formula={d.tolerance.formula}>
+            <div className={`figures whitespace-nowrap text-sm font-semibold ${d.reading.pass ? 'text-spruce-700' : 'text-madder-700'}`}>
+              <span className="text-2xs font-normal">{formulaLabel(d.tolerance)}</span> {d.reading.deltaE.toFixed(2)}
+            </div>
             <div className="whitespace-nowrap text-2xs text-ink-faint">{d.reading.pass ? 'within' : 'outside'} {toleranceLabel(d.tolerance)}</div>
           </div>
         ),
       }),
-      col.accessor((d) => d.reading.deltaE2000, {
-        id: 'de00',
-        header: 'ΔE00',
-        cell: (c) => <span className="figures">{c.getValue().toFixed(2)}</span>,
+      col.accessor((d) => (d.tolerance.formula === 'cmc' ? d.reading.deltaE2000 : d.reading.deltaECMC21), {
+        id: 'other',
+        header: 'Other formula',
+        cell: ({ row: { original: d } }) => (
+          <span className="figures whitespace-nowrap text-xs text-ink-soft">
+            {d.tolerance.formula === 'cmc' ? `ΔE00 ${d.reading.deltaE2000.toFixed(2)}` : `CMC(2:1) ${d.reading.deltaECMC21.toFixed(2)}`}
+          </span>
+        ),
       }),
       col.display({
         id: 'components',

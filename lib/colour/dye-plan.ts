@@ -33,8 +33,8 @@ export type DurationClass = 'short' | 'standard' | 'long';
 export interface BathProfile {
   temperatureC: number;
   durationClass: DurationClass;
-  /** Where the temperature comes from, in the terms of references.md. */
-  status: 'verified-2nd' | 'memory';
+  /** Where the temperature comes from, in the terms of references.md (or common practice). */
+  status: 'verified-2nd' | 'common-practice' | 'memory';
 }
 
 /**
@@ -42,7 +42,8 @@ export interface BathProfile {
  * - disperse 130 °C: "a dyeing temperature of 130 °C (266 °F) is required, and a pressurized
  *   dyebath is used" (an encyclopedia article on dyes, read in a secondary copy; references.md §8,
  *   verified-2nd).
- * - acid ~98 °C at the boil, pH 4.5–6 (references.md §8, from memory).
+ * - acid 98 °C: common practice, no published source — polyamide is dyed with acid dyes at or near
+ *   the boil (references.md §8 gives ~98–100 °C, pH 4.5–6, from memory).
  * - cationic at the boil, reactive 60 °C, direct 90 °C, vat 60 °C: from memory.
  * Duration classes: common practice, no published source (pressure dyeing and wash-off make a bath
  * long).
@@ -50,7 +51,7 @@ export interface BathProfile {
 export const bathProfiles: Readonly<Record<DyeClass, BathProfile>> = {
   disperse: { temperatureC: 130, durationClass: 'long', status: 'verified-2nd' },
   cationic: { temperatureC: 100, durationClass: 'standard', status: 'memory' },
-  acid: { temperatureC: 98, durationClass: 'standard', status: 'memory' },
+  acid: { temperatureC: 98, durationClass: 'standard', status: 'common-practice' },
   direct: { temperatureC: 90, durationClass: 'short', status: 'memory' },
   reactive: { temperatureC: 60, durationClass: 'long', status: 'memory' },
   vat: { temperatureC: 60, durationClass: 'long', status: 'memory' },
@@ -387,7 +388,9 @@ function stainFindings(bath: DyeBath, exposed: readonly Yarn[], findings: DyeFin
       'shifts their shade and washes out poorly.',
     instead:
       bath.dyeClass === 'disperse'
-        ? 'Clear the disperse dye off after dyeing (reduction clearing) and choose low-staining disperse dyes.'
+        ? 'Clear the disperse dye off after dyeing (reduction clearing) and choose low-staining disperse dyes.' +
+          // From memory: an alkaline reduction clear damages wool.
+          (which.includes('wool') ? ' Clear wool blends mildly, not in a hot alkaline reduction bath.' : '')
         : bath.dyeClass === 'cationic'
           ? 'Add a reserving agent for the polyamide to the cationic bath, choose cationic dyes that stain polyamide little, and clear after dyeing.'
           : `Choose ${bath.dyeClass} dyes of low staining and clear after dyeing.`,
@@ -403,6 +406,7 @@ function heatFindings(bath: DyeBath, exposed: readonly Yarn[], findings: DyeFind
   if (hurt.length === 0) return;
   const hurtYarns = exposed.filter((y) => fibresOf(y).some((f) => hurt.includes(f)));
   const limits = hurt.map((f) => `${f} ${fibre(f).wetLimitC} °C`).join(', ');
+  const harm = hurt.map((f) => `the ${f} ${fibre(f).wetLimitHarm ?? 'is damaged'}`).join('; ');
   findings.push({
     kind: 'heat-limit',
     severity: 'error',
@@ -410,7 +414,7 @@ function heatFindings(bath: DyeBath, exposed: readonly Yarn[], findings: DyeFind
     targetIds: [bath.targetId],
     message:
       `The ${bath.dyeClass} bath runs at ${bath.temperatureC} °C, above the wet limit of ` +
-      `${limits} in ${names(hurtYarns)}: it loses stretch and recovery.`,
+      `${limits} in ${names(hurtYarns)}: ${harm}.`,
     instead:
       bath.dyeClass === 'disperse'
         ? 'Dye at a lower temperature with disperse dyes made for it, or use a dope-dyed or yarn-dyed polyester so the garment needs no hot bath.'
@@ -444,14 +448,18 @@ function overdyeFindings(
   }
 }
 
-/** Grin-through: bare elastane (or another fibre that takes little dye) stays pale where it shows. */
+/**
+ * Grin-through: bare elastane (or another fibre that takes little dye) stays pale where it shows.
+ * Judged whenever the garment shows a coloured tone — a bath's colour or a yarn that comes coloured
+ * (a dope-dyed black ground with raw-white elastane grins through worst, with no bath at all).
+ */
 function grinThroughFindings(
   baths: readonly DyeBath[],
   all: readonly Yarn[],
   share: number,
   findings: DyeFinding[],
 ): void {
-  if (baths.length === 0) return;
+  if (baths.length === 0 && !all.some(isPrecoloured)) return;
   const pale = all.filter(
     (y) =>
       y.colour.state === 'dyeable' &&

@@ -11,6 +11,14 @@ export interface Lab {
 }
 
 /**
+ * True when two colours are the same to within `tolerance` in each of L*, a* and b* (default 1e-6:
+ * the same stored value, allowing for a round trip through JSON and floating-point columns).
+ */
+export function sameLab(p: Lab, q: Lab, tolerance = 1e-6): boolean {
+  return Math.abs(p.L - q.L) <= tolerance && Math.abs(p.a - q.a) <= tolerance && Math.abs(p.b - q.b) <= tolerance;
+}
+
+/**
  * The colour as a culori `lab65` object. culori's plain `lab` mode is D50 and would be adapted to
  * D65 before any difference is taken, which changes the result; `lab65` passes the values through.
  */

@@ -8,7 +8,7 @@ import { conflict, HttpError, notFound } from '@/lib/api/errors';
 import { planColourway, type ColourwayPlan, type TargetRoute } from '@/lib/colour/colourway';
 import { defaultLabDipTolerance, type LabDipTolerance } from '@/lib/colour/difference';
 import { defaultLowContrastDeltaE } from '@/lib/colour/dye-plan';
-import type { Lab } from '@/lib/colour/lab';
+import { sameLab, type Lab } from '@/lib/colour/lab';
 import type { Yarn } from '@/lib/knit/yarn';
 import type { ColourwayInput, ColourwayPatch, ColourwayTargetInput } from '@/lib/validations/colour';
 
@@ -27,7 +27,15 @@ export interface ColourwayTarget {
   colour: Lab;
   /** What lab dips for this target are judged by: the standard's, else the studio's. */
   tolerance: LabDipTolerance;
+  /**
+   * `approved`: a lab dip judged against the current colour is approved; `changed-since-approval`:
+   * a dip was approved, but against a colour the target (or its standard) no longer has; `open`:
+   * no approved dip. Client reviewers see `approved` targets only.
+   */
+  approval: TargetApproval;
 }
+
+export type TargetApproval = 'approved' | 'changed-since-approval' | 'open';
 
 export interface Colourway {
   id: string;
@@ -64,6 +72,8 @@ export interface StudioColourSettings {
   tolerance: LabDipTolerance;
   /** Two tones closer than this ΔE00 will not read as two. */
   lowContrastDeltaE: number;
+  /** The settings the studio has not set, which take the product default. */
+  defaults: ('tolerance' | 'lowContrastDeltaE')[];
 }
 
 interface ColourwayRow {
@@ -89,8 +99,12 @@ export async function studioColourSettings(studioId: string, q: Db = db()): Prom
         ? { formula: 'de2000', max: t.max }
         : { formula: 'cmc', l: typeof t.l === 'number' ? t.l : 2, c: typeof t.c === 'number' ? t.c : 1, max: t.max };
   }
-  const low = typeof s.lowContrastDeltaE === 'number' && s.lowContrastDeltaE > 0 ? s.lowContrastDeltaE : defaultLowContrastDeltaE;
-  return { tolerance, lowContrastDeltaE: low };
+  const setLow = typeof s.lowContrastDeltaE === 'number' && s.lowContrastDeltaE > 0;
+  const low = setLow ? (s.lowContrastDeltaE as number) : defaultLowContrastDeltaE;
+  const defaults: StudioColourSettings['defaults'] = [];
+  if (tolerance === defaultLabDipTolerance) defaults.push('tolerance');
+  if (!setLow) defaults.push('lowContrastDeltaE');
+  return { tolerance, lowContrastDeltaE: low, defaults };
 }
 
 /** The yarns of the style's textures, with the textures that use each. */
@@ -112,8 +126,15 @@ async function styleYarns(user: SessionUser, styleId: string, q: Db): Promise<St
   });
 }
 
-function toTarget(r: TargetRow, standards: Map<string, ColourStandard>, studioTolerance: LabDipTolerance): ColourwayTarget {
+function toTarget(
+  r: TargetRow,
+  standards: Map<string, ColourStandard>,
+  studioTolerance: LabDipTolerance,
+  approvedLabs: ReadonlyMap<string, readonly Lab[]>,
+): ColourwayTarget {
   const standard = r.standard_id ? standards.get(r.standard_id) : undefined;
+  const colour = standard ? standard.lab : { L: r.lab_l ?? 0, a: r.lab_a ?? 0, b: r.lab_b ?? 0 };
+  const judged = approvedLabs.get(r.id) ?? [];
   return {
     id: r.id,
     name: r.name,
@@ -123,22 +144,29 @@ function toTarget(r: TargetRow, standards: Map<string, ColourStandard>, studioTo
     source: r.standard_id ? 'standard' : 'lab',
     standardId: r.standard_id,
     standardName: standard?.name ?? null,
-    colour: standard ? standard.lab : { L: r.lab_l ?? 0, a: r.lab_a ?? 0, b: r.lab_b ?? 0 },
+    colour,
     tolerance: standard ? standard.tolerance : studioTolerance,
+    approval: judged.some((lab) => sameLab(lab, colour)) ? 'approved' : judged.length > 0 ? 'changed-since-approval' : 'open',
   };
 }
 
-/** Target ids that have an approved lab dip. */
-async function approvedTargetIds(targetIds: readonly string[], q: Db): Promise<Set<string>> {
-  if (targetIds.length === 0) return new Set();
-  const ids = (await q('lab_dips').whereIn('target_id', targetIds).andWhere({ status: 'approved' }).distinct('target_id').pluck('target_id')) as string[];
-  return new Set(ids);
+/** Per target, the target colours its approved lab dips were judged against (`lab_dips.target_lab`). */
+async function approvedDipLabs(targetIds: readonly string[], q: Db): Promise<Map<string, Lab[]>> {
+  const labs = new Map<string, Lab[]>();
+  if (targetIds.length === 0) return labs;
+  const rows = (await q('lab_dips').whereIn('target_id', targetIds).andWhere({ status: 'approved' }).select('target_id', 'target_lab')) as {
+    target_id: string;
+    target_lab: Lab;
+  }[];
+  for (const r of rows) labs.set(r.target_id, [...(labs.get(r.target_id) ?? []), r.target_lab]);
+  return labs;
 }
 
 /**
  * The style's colourways, each with its targets (colours resolved from their standards) and its
  * dye plan over the style's yarns, plus the yarns and the studio's colour settings. Client
- * reviewers see approved colours only: the targets with an approved lab dip, no plan, no notes.
+ * reviewers see approved colours only: the targets whose current colour is the one an approved lab
+ * dip was judged against, no plan, no notes.
  */
 export async function listColourways(user: SessionUser, styleId: string, q: Db = db()): Promise<StyleColourways> {
   const style = await findStyle(user, styleId, q);
@@ -150,14 +178,15 @@ export async function listColourways(user: SessionUser, styleId: string, q: Db =
     : [];
   const standards = await colourStandardsByIds(user.studioId, targetRows.flatMap((t) => (t.standard_id ? [t.standard_id] : [])), q);
   const client = user.role === 'client';
-  const approved = client ? await approvedTargetIds(targetRows.map((t) => t.id), q) : new Set<string>();
+  const approvedLabs = await approvedDipLabs(targetRows.map((t) => t.id), q);
   const known = new Set(yarns.map((y) => y.id));
 
   const colourways: Colourway[] = [];
   for (const r of rows) {
-    let targets = targetRows.filter((t) => t.colourway_id === r.id).map((t) => toTarget(t, standards, settings.tolerance));
+    let targets = targetRows.filter((t) => t.colourway_id === r.id).map((t) => toTarget(t, standards, settings.tolerance, approvedLabs));
     if (client) {
-      targets = targets.filter((t) => approved.has(t.id));
+      // A colour edited after its dip was approved is not the approved colour: withhold it.
+      targets = targets.filter((t) => t.approval === 'approved');
       if (targets.length === 0) continue;
     }
     const unusedYarnIds = [...new Set(targets.flatMap((t) => t.yarnIds.filter((y) => !known.has(y))))];

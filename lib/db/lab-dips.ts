@@ -7,7 +7,7 @@ import { colourStandardsByIds } from './colour-standards';
 import { studioColourSettings } from './colourways';
 import { conflict, HttpError, notFound } from '@/lib/api/errors';
 import type { LabDipTolerance } from '@/lib/colour/difference';
-import type { Lab } from '@/lib/colour/lab';
+import { sameLab, type Lab } from '@/lib/colour/lab';
 import { meanLab, readLabDip, type LabDipReading } from '@/lib/colour/lab-dip';
 import type { LabDipDecisionInput, LabDipInput } from '@/lib/validations/colour';
 
@@ -50,6 +50,8 @@ interface LabDipRow {
   readings: Lab[]; lab_l: number; lab_a: number; lab_b: number; target_lab: Lab; tolerance: LabDipTolerance; comment: string;
   status: LabDipStatus; decided_by_name: string | null; decided_at: Date | null; decision_comment: string; version: number;
   photo_file_id: string | null;
+  /** The target's colour now; read for client reviewers only. */
+  now_l?: number | null; now_a?: number | null; now_b?: number | null;
 }
 
 function toLabDip(r: LabDipRow, user: SessionUser): LabDip {
@@ -98,8 +100,24 @@ function visibleDips(user: SessionUser, styleId: string, q: Db) {
       'su.name as submitted_by_name', 'du.name as decided_by_name',
     );
   if (user.role === 'mill') qb.andWhere('d.organisation_id', user.organisationId ?? '00000000-0000-0000-0000-000000000000');
-  if (user.role === 'client') qb.andWhere('d.status', 'approved');
+  if (user.role === 'client') {
+    // The target's colour now (its standard's, else its own), to withhold approvals of a colour
+    // that has since been edited, as the colourways withhold the target.
+    qb.andWhere('d.status', 'approved')
+      .leftJoin('colour_standards as cs', 'cs.id', 't.standard_id')
+      .select(
+        q.raw('coalesce(cs.lab_l, t.lab_l) as now_l'),
+        q.raw('coalesce(cs.lab_a, t.lab_a) as now_a'),
+        q.raw('coalesce(cs.lab_b, t.lab_b) as now_b'),
+      );
+  }
   return qb;
+}
+
+/** For a client reviewer, only the dips judged against the colour their target has now. */
+function stillApproved(rows: readonly LabDipRow[], user: SessionUser): LabDipRow[] {
+  if (user.role !== 'client') return [...rows];
+  return rows.filter((r) => r.now_l !== undefined && sameLab(r.target_lab, { L: r.now_l ?? 0, a: r.now_a ?? 0, b: r.now_b ?? 0 }));
 }
 
 export async function listLabDips(user: SessionUser, styleId: string, filter: { colourwayId?: string } = {}, q: Db = db()): Promise<LabDip[]> {
@@ -108,13 +126,13 @@ export async function listLabDips(user: SessionUser, styleId: string, filter: { 
   const qb = visibleDips(user, styleId, q);
   if (filter.colourwayId) qb.andWhere('d.colourway_id', filter.colourwayId);
   const rows = (await qb.orderBy([{ column: 'd.submitted_at', order: 'desc' }, { column: 'd.sequence', order: 'desc' }])) as LabDipRow[];
-  return rows.map((r) => toLabDip(r, user));
+  return stillApproved(rows, user).map((r) => toLabDip(r, user));
 }
 
 export async function findLabDip(user: SessionUser, styleId: string, labDipId: string, q: Db = db()): Promise<LabDip> {
   const style = await findStyle(user, styleId, q);
   if (!style) throw notFound('Style not found.');
-  const row = (await visibleDips(user, styleId, q).andWhere('d.id', labDipId).first()) as LabDipRow | undefined;
+  const [row] = stillApproved([(await visibleDips(user, styleId, q).andWhere('d.id', labDipId).first()) as LabDipRow].filter(Boolean), user);
   if (!row) throw notFound('Lab dip not found.');
   return toLabDip(row, user);
 }

@@ -60,9 +60,14 @@ export interface Fibre {
   euAllowancePct: number;
   /** Annex IX values where the allowance depends on the fibre form. */
   euAllowanceByForm?: { staple: number; filament: number };
-  /** Highest wet-processing (dyeing) temperature, °C, where one applies. */
+  /**
+   * Highest wet-processing (dyeing) temperature, °C, where one applies below the hottest usual bath
+   * (disperse at 130 °C). Left out where the fibre takes that bath.
+   */
   wetLimitC?: number;
   wetLimitStatus?: ValueStatus;
+  /** What a bath hotter than `wetLimitC` does to the fibre, in plain words ("loses strength"). */
+  wetLimitHarm?: string;
   /** Highest dry-heat contact temperature for heat-applied trims, °C, where known. */
   heatLimitC?: number;
   heatLimitStatus?: ValueStatus;
@@ -147,6 +152,7 @@ export const fibres = {
     // (verified-2nd) that dyeing at 130 °C draws the elastane permanently and costs recovery.
     wetLimitC: 120,
     wetLimitStatus: 'memory',
+    wetLimitHarm: 'is drawn out for good and loses stretch and recovery',
     // Low-authority secondary source: "may be affected or be damaged at a temperature above 180".
     heatLimitC: 180,
     heatLimitStatus: 'verified-2nd',
@@ -174,7 +180,8 @@ export const fibres = {
     kind: 'animal',
     natural: true,
     dyeClasses: ['acid', 'reactive'],
-    stainedBy: [],
+    // From memory: disperse dyes stain wool in a polyester/wool blend, a stain of poor wet fastness.
+    stainedBy: ['disperse'],
     takesLittleDye: false,
     dopeDyedOnly: false,
     regainPct: 13.6, // ASTM D1909-13, verified-2nd
@@ -182,6 +189,11 @@ export const fibres = {
     // Annex IX: 17.00 carded, and "where it is impossible to ascertain whether … combed or carded";
     // 18.25 combed.
     euAllowancePct: 17.0,
+    // Common practice, no published source: wool is dyed at the boil; long baths well above it
+    // (past about 105 °C) yellow the wool and cost it strength.
+    wetLimitC: 105,
+    wetLimitStatus: 'memory',
+    wetLimitHarm: 'yellows, felts and loses strength',
     heatLimitC: 150, // memory
     heatLimitStatus: 'memory',
   }),
@@ -242,12 +254,19 @@ export const fibres = {
     kind: 'synthetic',
     natural: false,
     dyeClasses: ['cationic'],
-    stainedBy: [],
+    // references.md §8 (verified-2nd): disperse dyes "can also be used to dye … acrylic fibers";
+    // in a bath meant for polyester they colour it unasked.
+    stainedBy: ['disperse'],
     takesLittleDye: false,
     dopeDyedOnly: false,
     regainPct: 1.5, // memory
     regainStatus: 'memory',
     euAllowancePct: 2.0,
+    // From memory: acrylic softens above its wet glass transition (about 80–90 °C) and is dyed at or
+    // just above the boil; hotter baths shrink it and turn its handle harsh.
+    wetLimitC: 105,
+    wetLimitStatus: 'memory',
+    wetLimitHarm: 'softens, shrinks and turns harsh',
     heatLimitC: 150, // memory
     heatLimitStatus: 'memory',
   }),
@@ -302,6 +321,7 @@ export const fibres = {
     euAllowancePct: 1.5,
     wetLimitC: 115, // memory: it loses strength in hot water above about this
     wetLimitStatus: 'memory',
+    wetLimitHarm: 'loses strength',
     // Annex I No 34 requires "a melting temperature of at least 135 °C" (verified); keep below it.
     heatLimitC: 130,
     heatLimitStatus: 'computed',

@@ -123,6 +123,42 @@ export interface ColourTarget {
 /** The colourway's targets for dyeable yarns; the dye plan's `DyeTarget`s fit. */
 export interface Colourway {
   targets: readonly ColourTarget[];
+  /**
+   * The colourway's dye plan (`planDyeing` / `planColourway` output fits). With it the preview shows
+   * the dyed result rather than the intent: a yarn the plan finds undyeable stays undyed, and a
+   * dyeable yarn without a target takes the colour of the garment bath that dyes it.
+   */
+  plan?: PreviewPlan;
+}
+
+/** The parts of a dye plan the preview reads. */
+export interface PreviewPlan {
+  baths: readonly {
+    /** `yarn`: dyed as yarn before knitting (targeted yarns only); absent or `garment`: a garment bath. */
+    stage?: 'yarn' | 'garment';
+    order: number;
+    colour: Lab;
+    /** Fibres the bath colours, and the yarns it colours (in a garment bath, untargeted ones too). */
+    fibres: readonly string[];
+    yarnIds: readonly string[];
+  }[];
+  findings: readonly { kind: string; severity: string; yarnIds: readonly string[] }[];
+}
+
+/**
+ * How a yarn shows in a colourway preview. `own`: it comes coloured; `target`: its target colour;
+ * `bath`: no target of its own, it takes a garment bath's colour; `undyeable`: it has a target the
+ * plan finds no dye for, so it stays undyed; `no-target`: dyeable, no target, no bath dyes it, so
+ * it stays undyed; `pale`: mostly a fibre that takes little dye (bare elastane), pale whatever the
+ * bath; `undyed`: no colourway.
+ */
+export type YarnLookSource = 'own' | 'target' | 'bath' | 'undyeable' | 'no-target' | 'pale' | 'undyed';
+
+export interface YarnLook {
+  /** sRGB hex for the screen. */
+  hex: string;
+  lab: Lab;
+  source: YarnLookSource;
 }
 
 /** Undyed synthetic filament (raw white), CIELAB D65; this product's own preview value. */
@@ -148,25 +184,63 @@ function undyedLook(yarn: Yarn): 'elastane' | 'greige' | 'raw-white' {
 
 const undyedLab = { elastane: elastaneLab, greige: greigeLab, 'raw-white': rawWhiteLab } as const;
 
+/** The share of a yarn's fibres that a bath colours. */
+function bathShare(yarn: Yarn, bathFibres: readonly string[]): number {
+  return yarn.fibres.reduce((sum, f) => sum + (bathFibres.includes(f.fibre) ? f.share : 0), 0);
+}
+
 /**
- * Preview colour (sRGB hex) of each yarn, by yarn id: a dope-dyed or yarn-dyed yarn shows its own
- * CIELAB colour; a dyeable yarn the colourway's target that names it, if any, else its undyed look
- * (raw white for synthetics, greige for natural and regenerated fibres). A yarn mostly of a fibre that
+ * How each yarn shows in a colourway, by yarn id (see `YarnLookSource`): a dope-dyed or yarn-dyed
+ * yarn shows its own CIELAB colour; a dyeable yarn its target, if any, else its undyed look (raw
+ * white for synthetics, greige for natural and regenerated fibres). A yarn mostly of a fibre that
  * takes little dye (bare elastane) is a pale grey whatever the target, as it comes out of the bath.
+ * With the colourway's dye plan, a targeted yarn the plan finds undyeable (an error finding: it
+ * takes no dye) keeps its undyed look, and an untargeted dyeable yarn takes the colour of the garment
+ * bath that colours most of its fibres (the earlier bath on a tie), as the plan's baths list it.
  * Colours are screen previews through `labToSrgbHex` (chroma clipped into sRGB), not standards.
  */
-export function yarnColourMap(yarns: YarnLookup, colourway?: Colourway): Record<string, string> {
-  const out: Record<string, string> = {};
+export function yarnLooks(yarns: YarnLookup, colourway?: Colourway): Record<string, YarnLook> {
+  const out: Record<string, YarnLook> = {};
+  const look = (lab: Lab, source: YarnLookSource): YarnLook => ({ hex: labToSrgbHex(lab), lab, source });
+  const plan = colourway?.plan;
+  const undyeable = new Set(
+    (plan?.findings ?? []).filter((f) => f.kind === 'undyeable' && f.severity === 'error').flatMap((f) => f.yarnIds),
+  );
+  const garmentBaths = [...(plan?.baths ?? [])].filter((b) => b.stage !== 'yarn').sort((p, q) => p.order - q.order);
   for (const yarn of yarnMap(yarns).values()) {
     if (yarn.colour.state !== 'dyeable') {
-      out[yarn.id] = labToSrgbHex(yarn.colour.lab);
+      out[yarn.id] = look(yarn.colour.lab, 'own');
       continue;
     }
-    const look = undyedLook(yarn);
-    const target = look === 'elastane' ? undefined : colourway?.targets.find((t) => t.yarnIds.includes(yarn.id));
-    out[yarn.id] = labToSrgbHex(target ? target.colour : undyedLab[look]);
+    const kind = undyedLook(yarn);
+    const undyed = undyedLab[kind];
+    if (kind === 'elastane') {
+      out[yarn.id] = look(undyed, colourway ? 'pale' : 'undyed');
+      continue;
+    }
+    const target = colourway?.targets.find((t) => t.yarnIds.includes(yarn.id));
+    if (target) {
+      out[yarn.id] = undyeable.has(yarn.id) ? look(undyed, 'undyeable') : look(target.colour, 'target');
+      continue;
+    }
+    if (!colourway) {
+      out[yarn.id] = look(undyed, 'undyed');
+      continue;
+    }
+    let best: { colour: Lab; share: number } | undefined;
+    for (const b of garmentBaths) {
+      if (!b.yarnIds.includes(yarn.id)) continue;
+      const share = bathShare(yarn, b.fibres);
+      if (share > (best?.share ?? 0)) best = { colour: b.colour, share };
+    }
+    out[yarn.id] = best ? look(best.colour, 'bath') : look(undyed, 'no-target');
   }
   return out;
+}
+
+/** Preview colour (sRGB hex) of each yarn, by yarn id: the `hex` of `yarnLooks`. */
+export function yarnColourMap(yarns: YarnLookup, colourway?: Colourway): Record<string, string> {
+  return Object.fromEntries(Object.entries(yarnLooks(yarns, colourway)).map(([id, l]) => [id, l.hex]));
 }
 
 /** Yarn colours by id (hex), as `yarnColourMap` gives them. */

@@ -640,6 +640,12 @@ export const matrix: Record<string, Entry> = {
   'GET /api/settings/machine-limits': { expect: staffOnly(200), run: (c) => c.get('/api/settings/machine-limits') },
   // Blank limits: the defaults stay, so the other tests' rule findings do not change.
   'PUT /api/settings/machine-limits': { expect: adminOnly(200), run: (c) => c.put('/api/settings/machine-limits', { limits: { maxFloatMm: null, maxTuckStack: null } }) },
+  // Written back as the seed has them (CMC(2:1) ≤ 1.0, low contrast at the default), so other tests see no change.
+  'GET /api/settings/colour': { expect: staffOnly(200), run: (c) => c.get('/api/settings/colour') },
+  'PUT /api/settings/colour': {
+    expect: colourEditors(200),
+    run: (c) => c.put('/api/settings/colour', { tolerance: { formula: 'cmc', l: 2, c: 1, max: 1 }, lowContrastDeltaE: null }),
+  },
 };
 
 function briefReaders(ok: number) {

@@ -34,7 +34,7 @@ const labTarget = (name: string, yarnIds: string[], lab: { L: number; a: number;
   name, yarnIds, route, colour: { source: 'lab', lab },
 });
 
-async function twoTone(targets = [labTarget('Ground', [yarns.pa78, yarns.pa44], navy), labTarget('Accent', [yarns.cd84], teal)]) {
+async function twoTone(targets: object[] = [labTarget('Ground', [yarns.pa78, yarns.pa44], navy), labTarget('Accent', [yarns.cd84], teal)]) {
   const lead = await as('colour-lead');
   const res = await lead.post(`/api/styles/${ridgeId}/colourways`, { name: unique('Two-tone'), notes: 'Studio only', targets });
   expect(res.status).toBe(201);
@@ -220,6 +220,60 @@ describe('colourways', () => {
     expect(dips.map((d: { id: string }) => d.id)).toContain(approved.id);
     const none = await twoTone();
     expect((await client.get(`/api/styles/${ridgeId}/colourways/${none.id}`)).status).toBe(404);
+  });
+
+  it('a colour edited after its dip was approved is withheld from the client and marked for the colour lead', async () => {
+    const cw = await twoTone();
+    const dip = await submit(cw.targets[0]!.id);
+    const lead = await as('colour-lead');
+    const client = await as('client');
+    expect((await lead.patch(`/api/styles/${ridgeId}/lab-dips/${dip.id}`, { version: dip.version, decision: 'approved' })).status).toBe(200);
+    const path = `/api/styles/${ridgeId}/colourways/${cw.id}`;
+    expect((await client.get(path)).json.colourway.targets.map((t: { name: string }) => t.name)).toEqual(['Ground']);
+    const before = (await lead.get(path)).json.colourway;
+    expect(before.targets.map((t: { approval: string }) => t.approval)).toEqual(['approved', 'open']);
+
+    // The ground moves to red: the approved dip was judged against navy.
+    const edit = (lab: typeof navy, version: number) =>
+      lead.patch(path, {
+        version,
+        targets: [
+          { id: cw.targets[0]!.id, ...labTarget('Ground', [yarns.pa78, yarns.pa44], lab) },
+          { id: cw.targets[1]!.id, ...labTarget('Accent', [yarns.cd84], teal) },
+        ],
+      });
+    const moved = await edit(red, before.version);
+    expect(moved.status).toBe(200);
+    expect(moved.json.colourway.targets.map((t: { approval: string }) => t.approval)).toEqual(['changed-since-approval', 'open']);
+    expect((await client.get(path)).status).toBe(404);
+    expect((await client.get(`/api/styles/${ridgeId}/colourways`)).json.colourways.map((c: { id: string }) => c.id)).not.toContain(cw.id);
+    // Its approved dip was of another colour: withheld too.
+    expect((await client.get(`/api/styles/${ridgeId}/lab-dips`)).json.labDips.map((d: { id: string }) => d.id)).not.toContain(dip.id);
+    expect((await client.get(`/api/styles/${ridgeId}/lab-dips/${dip.id}`)).status).toBe(404);
+    expect((await lead.get(`/api/styles/${ridgeId}/lab-dips/${dip.id}`)).json.labDip.status).toBe('approved');
+
+    // Back to the colour the dip was judged against: approved again.
+    const back = await edit(navy, moved.json.colourway.version);
+    expect(back.json.colourway.targets[0].approval).toBe('approved');
+    expect((await client.get(path)).json.colourway.targets[0].colour).toEqual(navy);
+    expect((await client.get(`/api/styles/${ridgeId}/lab-dips/${dip.id}`)).status).toBe(200);
+  });
+
+  it('a target on a colour standard is withheld from the client once the standard’s colour is edited', async () => {
+    const lead = await as('colour-lead');
+    const client = await as('client');
+    const standard = (await lead.post('/api/library/colour-standards', { name: unique('Scree'), lab: navy, source: 'measured' })).json.standard;
+    const cw = await twoTone([
+      { name: 'Ground', yarnIds: [yarns.pa78, yarns.pa44], route: 'garment-dyed', colour: { source: 'standard', standardId: standard.id } },
+    ]);
+    const dip = await submit(cw.targets[0]!.id);
+    expect((await lead.patch(`/api/styles/${ridgeId}/lab-dips/${dip.id}`, { version: dip.version, decision: 'approved' })).status).toBe(200);
+    const path = `/api/styles/${ridgeId}/colourways/${cw.id}`;
+    expect((await client.get(path)).status).toBe(200);
+    expect((await lead.patch(`/api/library/colour-standards/${standard.id}`, { version: standard.version, lab: { ...navy, L: navy.L + 0.5 } })).status).toBe(200);
+    expect((await client.get(path)).status).toBe(404);
+    expect((await lead.get(path)).json.colourway.targets[0].approval).toBe('changed-since-approval');
+    expect((await client.get(`/api/styles/${ridgeId}/lab-dips`)).json.labDips.map((d: { id: string }) => d.id)).not.toContain(dip.id);
   });
 
   it('DELETE archives the colourway: hidden, its dips no longer listed', async () => {

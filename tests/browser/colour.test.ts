@@ -67,6 +67,36 @@ describe('colour in the browser', () => {
     expect(dip.status).toBe('approved');
   });
 
+  it('a dip judged by a ΔE00 tolerance shows its ΔE00 beside the verdict, and CMC(2:1) as the other formula', async () => {
+    const ridge = await styleByCode('HF27-101');
+    const lead = await as('colour-lead');
+    const stamp = Date.now().toString(36);
+    const standard = (await lead.post('/api/library/colour-standards', {
+      name: `Tight navy ${stamp}`, lab: { L: 24.5, a: 1.8, b: -21.6 }, source: 'measured', tolerance: { formula: 'de2000', max: 0.5 },
+    })).json.standard;
+    const yarnId = (await lead.get(`/api/styles/${ridge.id}/colourways`)).json.yarns.find((y: { name: string }) => y.name === 'Polyamide 6.6 78/68 semi-dull').id;
+    const name = `Browser ΔE00 ${stamp}`;
+    const cw = (await lead.post(`/api/styles/${ridge.id}/colourways`, {
+      name, targets: [{ name: 'Ground', yarnIds: [yarnId], route: 'garment-dyed', colour: { source: 'standard', standardId: standard.id } }],
+    })).json.colourway;
+    const mill = await as('mill');
+    // This dip is 0.89 ΔE00 off (outside ΔE00 ≤ 0.5) but 0.78 by CMC(2:1): the verdict must follow ΔE00.
+    const sent = await mill.post(`/api/styles/${ridge.id}/lab-dips`, { targetId: cw.targets[0].id, measured: { L: 24.9, a: 2.4, b: -21.0 } });
+    expect(sent.status).toBe(201);
+    const reading = sent.json.labDip.reading as { deltaE: number; deltaE2000: number; deltaECMC21: number; pass: boolean };
+    expect(reading.deltaE).toBe(reading.deltaE2000);
+    expect(reading.pass).toBe(false);
+
+    const page = await signIn(browser, accounts['colour-lead']);
+    await page.goto(`${baseUrl()}/styles/${ridge.id}/colour`);
+    await page.getByRole('button', { name }).click();
+    const cell = page.getByTestId('lab-dip-row').filter({ hasText: 'Ground' }).locator('[data-formula="de2000"]');
+    await expect.poll(() => cell.textContent()).toContain(`ΔE00 ${reading.deltaE2000.toFixed(2)}`);
+    expect(await cell.textContent()).toContain(`${reading.pass ? 'within' : 'outside'} ΔE00 ≤ 0.50`);
+    const row = page.getByTestId('lab-dip-row').filter({ hasText: 'Ground' });
+    expect(await row.textContent()).toContain(`CMC(2:1) ${reading.deltaECMC21.toFixed(2)}`);
+  });
+
   it('the mill sends a lab dip from its style page with pasted readings', async () => {
     const ridge = await styleByCode('HF27-101');
     const page = await signIn(browser, accounts.mill);

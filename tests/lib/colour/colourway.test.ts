@@ -95,6 +95,14 @@ describe('planColourway, mixed routes', () => {
     expect(f?.instead).toMatch(/Yarn-dye it or garment-dye it/);
   });
 
+  // Common practice, no published source: raw-white elastane grins through a dark ground, whether
+  // the ground was dyed in the garment or spun in its colour.
+  it('names the elastane grin-through of an all dope-dyed colourway, which has no bath', () => {
+    const plan = planColourway({ yarns: [pes, el], targets: [target('body', ['pes'], navy, 'dope-dyed')] });
+    expect(plan.baths).toEqual([]);
+    expect(plan.findings.filter((f) => f.kind === 'grin-through').map((f) => f.yarnIds)).toEqual([['el']]);
+  });
+
   it('keeps a library yarn that comes coloured in its own colour', () => {
     const black = yarn('pp', [['polypropylene', 1]], { state: 'dope-dyed', lab: { L: 18, a: 0, b: -1 } });
     const plan = planColourway({ yarns: [pa, black], targets: [target('ground', ['pa'], navy)] });

@@ -77,9 +77,10 @@ describe('planDyeing, garment-dyed', () => {
     expect(plan.findings.find((f) => f.kind === 'grin-through')?.yarnIds).toEqual(['el']);
   });
 
-  // Polyamide/elastane in one colour: acid bath at about 98 °C (from memory, references.md §8) is
-  // below elastane's wet limit in the fibre registry, so no heat finding; bare elastane takes little
-  // dye (product design §8) and grins through.
+  // Polyamide/elastane in one colour: the acid bath at 98 °C (common practice, no published source:
+  // polyamide is dyed with acid dyes at or near the boil) is below elastane's wet limit in the fibre
+  // registry (120 °C, from memory), so no heat finding; bare elastane takes little dye (product
+  // design §8) and grins through.
   it('dyes polyamide + elastane in one acid bath at 98 °C without a heat finding', () => {
     const plan = planDyeing({ yarns: [pa, el], targets: [target('body', ['pa', 'el'], navy)], route: 'garment-dyed' });
     expect(plan.baths).toHaveLength(1);
@@ -101,6 +102,72 @@ describe('planDyeing, garment-dyed', () => {
     expect(heat?.yarnIds).toEqual(['el']);
     expect(heat?.message).toMatch(/130 °C/);
     expect(plan.findings.find((f) => f.kind === 'stain-risk')?.yarnIds).toEqual(['el']);
+  });
+
+  // Wool + polyester two-tone: the polyester needs the disperse bath at 130 °C (references.md §8,
+  // verified-2nd); wool is dyed at the boil and yellows and weakens in long baths well above it
+  // (common practice, no published source; registry wetLimitC 105 °C), and disperse dyes stain it
+  // (from memory).
+  it('flags the heat limit and the disperse stain on the wool of a wool + polyester two-tone at 130 °C', () => {
+    const plan = planDyeing({ yarns: [wool, pes], targets: [target('a', ['wool'], red), target('b', ['pes'], navy)], route: 'garment-dyed' });
+    expect(plan.baths.map((b) => [b.dyeClass, b.temperatureC])).toEqual([
+      ['disperse', 130],
+      ['acid', 98],
+    ]);
+    const heat = plan.findings.filter((f) => f.kind === 'heat-limit');
+    expect(heat).toHaveLength(1);
+    expect(heat[0]?.yarnIds).toEqual(['wool']);
+    expect(heat[0]?.targetIds).toEqual(['b']);
+    expect(heat[0]?.message).toMatch(/130 °C, above the wet limit of wool 105 °C/);
+    expect(heat[0]?.message).toMatch(/wool yellows/);
+    const stain = plan.findings.filter((f) => f.kind === 'stain-risk');
+    expect(stain).toHaveLength(1);
+    expect(stain[0]?.yarnIds).toEqual(['wool']);
+    expect(stain[0]?.message).toMatch(/disperse bath stains the wool/);
+    expect(stain[0]?.instead).toMatch(/not in a hot alkaline reduction bath/);
+  });
+
+  // The same two-tone with the disperse bath run at the boil (a studio override) is within wool's
+  // limit: the heat finding goes, the stain stays.
+  it('keeps the wool stain but drops its heat finding when the disperse bath runs at 100 °C', () => {
+    const plan = planDyeing({
+      yarns: [wool, pes],
+      targets: [target('a', ['wool'], red), target('b', ['pes'], navy)],
+      route: 'garment-dyed',
+      options: { bathTemperatureC: { disperse: 100 } },
+    });
+    expect(kinds(plan)).not.toContain('heat-limit');
+    expect(plan.findings.find((f) => f.kind === 'stain-risk')?.yarnIds).toEqual(['wool']);
+  });
+
+  // Acrylic + polyester two-tone: cationic dyes for the acrylic (references.md §8, verified-2nd) at
+  // the boil, disperse at 130 °C for the polyester. Acrylic softens above its wet glass transition
+  // and is not dyed much above the boil (from memory, registry wetLimitC 105 °C); disperse dyes
+  // colour acrylic too ("can also be used to dye … acrylic fibers", references.md §8, verified-2nd).
+  it('flags the heat limit and the disperse stain on the acrylic of an acrylic + polyester two-tone', () => {
+    const pan = yarn('pan', [['acrylic', 1]]);
+    const plan = planDyeing({ yarns: [pan, pes], targets: [target('a', ['pan'], red), target('b', ['pes'], navy)], route: 'garment-dyed' });
+    expect(plan.baths.map((b) => [b.dyeClass, b.temperatureC])).toEqual([
+      ['disperse', 130],
+      ['cationic', 100],
+    ]);
+    const heat = plan.findings.filter((f) => f.kind === 'heat-limit');
+    expect(heat).toHaveLength(1);
+    expect(heat[0]?.yarnIds).toEqual(['pan']);
+    expect(heat[0]?.message).toMatch(/disperse bath runs at 130 °C, above the wet limit of acrylic 105 °C/);
+    expect(heat[0]?.message).toMatch(/acrylic softens, shrinks/);
+    expect(plan.findings.find((f) => f.kind === 'stain-risk')?.yarnIds).toEqual(['pan']);
+  });
+
+  // Their own baths stay within the limits: wool in acid at about 98 °C, acrylic in cationic at the
+  // boil (bath profiles: acid 98 °C common practice, cationic 100 °C from memory).
+  it('finds no heat limit for wool in its acid bath or acrylic in its cationic bath', () => {
+    const pan = yarn('pan', [['acrylic', 1]]);
+    for (const y of [wool, pan]) {
+      const plan = planDyeing({ yarns: [y], targets: [target('a', [y.id], red)], route: 'garment-dyed' });
+      expect(plan.baths).toHaveLength(1);
+      expect(kinds(plan)).toEqual([]);
+    }
   });
 
   it('drops the heat finding when the studio runs the disperse bath at the elastane limit', () => {
@@ -199,6 +266,22 @@ describe('planDyeing, garment-dyed', () => {
       options: { lowContrastDeltaE: 1.8 },
     });
     expect(kinds(relaxed)).not.toContain('low-contrast');
+  });
+
+  // Product design §8: elastane takes little dye; a raw-white elastane shows most under a dark
+  // ground (common practice, no published source). A dope-dyed ground needs no bath, and still shows it.
+  it('finds the grin-through of bare elastane under a dope-dyed black polyester, with no bath at all', () => {
+    const black = yarn('pes-black', [['polyester', 1]], { state: 'dope-dyed', lab: { L: 18, a: 0, b: -1 } });
+    const plan = planDyeing({ yarns: [black, el], targets: [], route: 'garment-dyed' });
+    expect(plan.baths).toEqual([]);
+    const grin = plan.findings.filter((f) => f.kind === 'grin-through');
+    expect(grin).toHaveLength(1);
+    expect(grin[0]?.yarnIds).toEqual(['el']);
+  });
+
+  it('finds no grin-through while nothing in the garment is coloured', () => {
+    const plan = planDyeing({ yarns: [pes, el], targets: [], route: 'garment-dyed' });
+    expect(plan.findings).toEqual([]);
   });
 
   it('refuses a target that names an unknown yarn', () => {

@@ -168,7 +168,7 @@ describe('temperature limits', () => {
   it('elastane has a wet limit below the 130 °C polyester bath that harms it (dyeing technical note, 2000, in references.md §8; verified-2nd)', () => {
     expect(fibres.elastane.wetLimitC).toBeDefined();
     expect(fibres.elastane.wetLimitC as number).toBeLessThan(130);
-    // Polyamide's acid bath at the boil (about 98–100 °C, from memory) stays within it.
+    // Polyamide's acid bath at or near the boil (98 °C, common practice, no published source) stays within it.
     expect(fibres.elastane.wetLimitC as number).toBeGreaterThanOrEqual(100);
     expect(fibres.elastane.wetLimitStatus).toBe('memory');
   });

@@ -11,11 +11,13 @@ import {
   repeatsForMinSize,
   textureIndexPalette,
   yarnColourMap,
+  yarnLooks,
   type DrawItem,
   type Path,
   type TileDrawing,
 } from '@/lib/knit/render';
 import { drawTile, type Canvas2DLike } from '@/lib/knit/render-canvas';
+import { planColourway } from '@/lib/colour/colourway';
 import { drawingToSvg } from '@/lib/knit/render-svg';
 import type { Feeder, StitchAction, Texture } from '@/lib/knit/texture';
 import type { Yarn } from '@/lib/knit/yarn';
@@ -393,6 +395,46 @@ describe('colours', () => {
     const dark = backgroundOf(renderTile(jersey, yarns, opts(1, 1)));
     expect(srgbHexToLab(pale)?.L ?? 100).toBeLessThan(30);
     expect(srgbHexToLab(dark)?.L ?? 0).toBeGreaterThan(45);
+  });
+});
+
+// Product design §8 for the dye classes: acid dyes colour polyamide, polypropylene takes no dye
+// (dope-dyed only), elastane takes little; the preview follows the dye plan of lib/colour.
+describe('yarnLooks: the dyed result of a colourway with its dye plan', () => {
+  const mk = (id: string, fibre: Yarn['fibres'][number]['fibre']): Yarn => ({ id, name: id, dtex: 78, fibres: [{ fibre, share: 1 }], colour: { state: 'dyeable' } });
+  const styleYarns = [mk('pa', 'polyamide'), mk('pa2', 'polyamide'), mk('pp', 'polypropylene'), mk('pes', 'polyester'), el];
+  const navy = { L: 22, a: 3, b: -25 };
+  const red = { L: 45, a: 60, b: 35 };
+  const targets = [
+    { id: 'ground', name: 'Ground', yarnIds: ['pa'], colour: navy, route: 'garment-dyed' as const },
+    { id: 'flash', name: 'Flash', yarnIds: ['pp'], colour: red, route: 'garment-dyed' as const },
+  ];
+  const plan = planColourway({ yarns: styleYarns, targets });
+  const looks = yarnLooks(styleYarns, { targets, plan });
+  const rawWhite = yarnLooks(styleYarns).pes;
+
+  it('shows an undyeable polypropylene with a target undyed, and marks it, as the plan finds it', () => {
+    expect(plan.findings.find((f) => f.kind === 'undyeable')?.yarnIds).toEqual(['pp']);
+    expect(looks.pp?.source).toBe('undyeable');
+    expect(looks.pp?.hex).toBe(rawWhite?.hex);
+    // Without the plan the preview still shows the intent.
+    expect(yarnLooks(styleYarns, { targets }).pp?.hex).toBe(labToSrgbHex(red));
+  });
+
+  it('shows an untargeted polyamide in the acid bath colour, and an untargeted polyester undyed with no target', () => {
+    expect(plan.baths.find((b) => b.dyeClass === 'acid')?.yarnIds).toContain('pa2');
+    expect(looks.pa?.source).toBe('target');
+    expect(looks.pa2).toMatchObject({ source: 'bath', hex: labToSrgbHex(navy) });
+    expect(looks.pes).toMatchObject({ source: 'no-target', hex: rawWhite?.hex });
+    expect(looks.el?.source).toBe('pale');
+    expect(yarnColourMap(styleYarns, { targets, plan })).toEqual(Object.fromEntries(Object.entries(looks).map(([id, l]) => [id, l.hex])));
+  });
+
+  it('a yarn-dyed target does not colour untargeted yarns: only garment baths do', () => {
+    const yarnRoute = [{ ...targets[0]!, route: 'yarn-dyed' as const }];
+    const p = planColourway({ yarns: styleYarns, targets: yarnRoute });
+    expect(p.baths.map((b) => b.stage)).toEqual(['yarn']);
+    expect(yarnLooks(styleYarns, { targets: yarnRoute, plan: p }).pa2?.source).toBe('no-target');
   });
 });
 

@@ -4,8 +4,10 @@ import { redirect } from 'next/navigation';
 import { currentUser } from '@/lib/auth/authorize';
 import { can } from '@/lib/auth/roles';
 import { listColourStandards } from '@/lib/db/colour-standards';
+import { readColourSettings } from '@/lib/db/colour-settings';
 import { PageHeader } from '@/components/ui/card';
 import { ColourStandardsLibrary } from '@/components/colour/colour-standards-library';
+import { ColourSettingsForm } from '@/components/colour/colour-settings-form';
 
 export const metadata: Metadata = { title: 'Colour standards' };
 
@@ -13,7 +15,7 @@ export default async function ColourStandardsPage() {
   const user = await currentUser();
   if (!user) redirect('/sign-in');
   if (!can(user.role, 'library:read')) redirect('/styles');
-  const standards = await listColourStandards(user);
+  const [standards, settings] = await Promise.all([listColourStandards(user), readColourSettings(user)]);
   return (
     <>
       <div className="mb-1 flex items-center gap-2 text-xs text-ink-faint">
@@ -25,6 +27,9 @@ export default async function ColourStandardsPage() {
         <p className="mt-1 text-sm text-ink-soft">Named colours the studio matches lab dips against, with the tolerance each accepts.</p>
       </PageHeader>
       <ColourStandardsLibrary initial={standards} canEdit={can(user.role, 'colour:edit')} />
+      <div className="mt-6 max-w-2xl">
+        <ColourSettingsForm initial={settings} editable={can(user.role, 'colour:edit')} />
+      </div>
     </>
   );
 }
