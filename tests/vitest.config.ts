@@ -32,6 +32,9 @@ export default defineConfig({
           fileParallelism: false,
           testTimeout: 30000,
           hookTimeout: 120000,
+          // A poll waits on the app server's answer to a click; on a loaded two-core machine that
+          // can take longer than the 1 s default without anything being wrong.
+          expect: { poll: { timeout: 10000 } },
         },
       },
       {
