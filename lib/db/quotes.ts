@@ -134,7 +134,7 @@ export async function saveQuoteInputs(user: SessionUser, styleId: string, input:
   if (!can(user.role, 'quote:edit')) throw forbidden();
   if (!(await findStyle(user, styleId, q))) throw notFound('Style not found.');
   await q.transaction(async (trx) => {
-    const current = (await trx('quotes').where({ style_id: styleId }).forUpdate().first('version')) as { version: number } | undefined;
+    const current = (await trx('quotes').where({ style_id: styleId }).forUpdate().first('version', 'inputs')) as { version: number; inputs: unknown } | undefined;
     const stale = () => conflict('Someone saved this quote after you opened it. Reload to see their entries.', { currentVersion: current?.version ?? 0 });
     if (!current) {
       if (input.version !== 0) throw stale();
@@ -145,8 +145,11 @@ export async function saveQuoteInputs(user: SessionUser, styleId: string, input:
         .update({ inputs: JSON.stringify(input.inputs), version: trx.raw('version + 1'), updated_by: user.id, updated_at: trx.fn.now() });
       if (n === 0) throw stale();
     }
-    // Field names only: the history is read by client reviewers too.
-    await trx('audit_log').insert({ studio_id: user.studioId, style_id: styleId, user_id: user.id, action: 'quote.save', details: '{}' });
+    // Entry names only, never their values: the history is read by client reviewers too.
+    const before = quoteInputsSchema.safeParse(current?.inputs ?? {});
+    const was: Record<string, unknown> = before.success ? before.data : {};
+    const fields = Object.keys(input.inputs).filter((k) => JSON.stringify(was[k]) !== JSON.stringify((input.inputs as Record<string, unknown>)[k]));
+    await trx('audit_log').insert({ studio_id: user.studioId, style_id: styleId, user_id: user.id, action: 'quote.save', details: JSON.stringify({ fields }) });
   });
   return loadQuote(user, styleId, q);
 }
