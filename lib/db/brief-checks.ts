@@ -31,7 +31,7 @@ export async function briefChecks(user: SessionUser, styleId: string, q: Knex = 
   if (!can(user.role, 'brief:read')) throw forbidden();
   if (!(await findStyle(user, styleId, q))) throw notFound('Style not found.');
   const studioView: SessionUser = isOutsideRole(user.role) ? { ...user, role: 'colour-lead', organisationId: null, organisationName: null } : user;
-  const answers = await briefAnswersForStudio(user.studioId, styleId, q);
+  const answers = (await briefAnswersForStudio(user.studioId, styleId, q))?.answers ?? null;
   const plan = await loadStylePlan(studioView, styleId, 0.05, q);
   const { summary } = plan;
   const [sheet, colour] = await Promise.all([

@@ -9,6 +9,7 @@ import { briefAnswersForStudio } from './briefs';
 import { coursesPerGarment, loadStylePlan, sizeScales } from './plan-figures';
 import { computeQuote, exampleValueNote, resolveRates, trimCostKinds, type CostRates, type Quote, type QuoteMachine, type TrimCostKind } from '@/lib/cost';
 import { quoteInputsSchema, type CostRatesInput, type QuoteInputs } from '@/lib/validations/quote';
+import { briefFieldLabels } from '@/lib/validations/brief';
 
 export interface StudioCostRates {
   rates: CostRates;
@@ -89,10 +90,11 @@ export async function loadQuote(user: SessionUser, styleId: string, q: Knex = db
   assertCosts(user);
   const style = await findStyle(user, styleId, q);
   if (!style) throw notFound('Style not found.');
-  const [studio, stored, answers, trims] = await Promise.all([
+  const [studio, stored, brief, trims] = await Promise.all([
     studioCostRates(user, q), quoteRow(styleId, q), briefAnswersForStudio(user.studioId, styleId, q), listTrims(user, styleId, q),
   ]);
   const { rates } = studio;
+  const answers = brief?.answers ?? null;
   const plan = await loadStylePlan(user, styleId, rates.wasteAllowance, q);
   const { scales, fromSpec } = await sizeScales(user, style, q);
   const machine = machineFor(style, stored.inputs, rates);
@@ -124,6 +126,9 @@ export async function loadQuote(user: SessionUser, styleId: string, q: Knex = db
       garments: answers?.orderBySize[s.size] ?? 0,
     })),
   });
+  if (brief?.repaired.length) {
+    quote.problems.push(`The saved brief had answers that no longer pass its checks (${brief.repaired.map((f) => briefFieldLabels[f].toLowerCase()).join(', ')}): they are left empty here. Open the brief and save it again.`);
+  }
   return {
     styleId, styleCode: style.code, styleName: style.name, version: stored.version, inputs: stored.inputs, studio, machine, quote, basis, updatedAt: stored.updatedAt,
   };

@@ -68,6 +68,16 @@ export type BriefAnswers = z.infer<typeof briefAnswersSchema>;
 
 export const emptyBrief: BriefAnswers = briefAnswersSchema.parse({});
 
+/** Each answer's name as the questionnaire shows it. */
+export const briefFieldLabels: Record<keyof BriefAnswers, string> = {
+  customers: 'Customers', sport: 'Sport', level: 'Level', climate: 'Climate', season: 'Season', purpose: 'Purpose',
+  compression: 'Compression level', ventilationAreas: 'Ventilation areas', support: 'Support', stretch: 'Stretch',
+  weightUnit: 'Weight unit', weightTarget: 'Weight target', care: 'Care expectations', colourIntent: 'Colour intent',
+  tones: 'Number of tones', targetPrice: 'Target price per garment', orderBySize: 'Order size per size',
+  sampleDate: 'Sample date', deliveryDate: 'Delivery date', fibresToAvoid: 'Fibres to avoid', recycledPct: 'Recycled content, at least %',
+  markets: 'Markets',
+};
+
 export const briefSaveSchema = z
   .object({
     /** The brief's version the edit started from; 0 when no brief was saved yet. */

@@ -52,6 +52,34 @@ describe('brief and quote routes', () => {
     expect(JSON.stringify(history.json)).not.toContain('47.35');
   });
 
+  it('keeps every saved version of the brief for staff, with what changed; never for the client or the mill', async () => {
+    const before = (await designer.get(`/api/styles/${styleId}/brief`)).json.brief;
+    const saved = await designer.put(`/api/styles/${styleId}/brief`, { version: before.version, answers: { ...before.answers, sport: 'Fell running', tones: 3 } });
+    expect(saved.status).toBe(200);
+    const res = await designer.get(`/api/styles/${styleId}/brief/versions`);
+    expect(res.status).toBe(200);
+    const versions = res.json.versions as { version: number; savedBy: string | null; answers: { sport: string; targetPrice: number | null }; changes: { field: string; before: unknown; after: unknown }[] }[];
+    expect(versions.map((v) => v.version)).toEqual([...versions.map((v) => v.version)].sort((a, b) => b - a));
+    const [latest, previous] = versions;
+    expect(latest!.version).toBe(before.version + 1);
+    expect(latest!.answers.sport).toBe('Fell running');
+    expect(latest!.savedBy).toBeTruthy();
+    expect(latest!.changes.map((c) => c.field).sort()).toEqual(['sport', 'tones']);
+    expect(latest!.changes.find((c) => c.field === 'sport')).toEqual({ field: 'sport', before: 'Trail running', after: 'Fell running' });
+    // The version before holds the full answers as they were, price included.
+    expect(previous!.version).toBe(before.version);
+    expect(previous!.answers.sport).toBe('Trail running');
+    expect(previous!.answers.targetPrice).toBe(47.35);
+    expect((await designer.get(`/api/styles/${styleId}/history`)).text).toContain('brief.save');
+    const colourLead = await as('colour-lead');
+    expect((await colourLead.get(`/api/styles/${styleId}/brief/versions`)).status).toBe(200);
+    expect((await client.get(`/api/styles/${styleId}/brief/versions`)).status).toBe(403);
+    expect((await mill.get(`/api/styles/${styleId}/brief/versions`)).status).toBe(403);
+    expect((await designer.get('/api/styles/not-a-uuid/brief/versions')).status).toBe(400);
+    // Put the sport back for the tests below.
+    await designer.put(`/api/styles/${styleId}/brief`, { version: latest!.version, answers: { ...latest!.answers, sport: 'Trail running', tones: 2 } });
+  });
+
   it('answers bad input with 400 and field errors, never 500', async () => {
     const v = (await designer.get(`/api/styles/${styleId}/brief`)).json.brief.version;
     const bad = await designer.put(`/api/styles/${styleId}/brief`, { version: v, answers: { tones: 'many', markets: ['mars'], recycledPct: 140 } });
@@ -161,7 +189,7 @@ describe('brief and quote routes', () => {
     const paths = [
       `/api/styles/${styleId}`, `/api/styles/${styleId}/textures`, `/api/styles/${styleId}/body-map`, `/api/styles/${styleId}/fit`,
       `/api/styles/${styleId}/fit/sheet`, `/api/styles/${styleId}/colourways`, `/api/styles/${styleId}/trims`, `/api/styles/${styleId}/history`,
-      `/api/styles/${styleId}/brief`, `/api/styles/${styleId}/brief/checks`, `/api/styles/${styleId}/brief/references`, '/api/styles',
+      `/api/styles/${styleId}/brief`, `/api/styles/${styleId}/brief/checks`, `/api/styles/${styleId}/brief/references`, `/api/styles/${styleId}/brief/versions`, '/api/styles',
     ];
     // The staff view has prices, so the check below is not vacuous.
     expect((await designer.get(`/api/styles/${styleId}/textures`)).text).toMatch(/"pricePerKg":\d/);
