@@ -7,7 +7,7 @@ import { conflict, forbidden, HttpError, notFound } from '@/lib/api/errors';
 import { can, canSeeCosts } from '@/lib/auth/roles';
 import type { InspectedUpload } from '@/lib/files/inspect';
 import type { ObjectStore } from '@/lib/storage/object-store';
-import { briefAnswersSchema, emptyBrief, type BriefAnswers, type BriefSave, type ReferenceTag } from '@/lib/validations/brief';
+import { emptyBrief, readBriefAnswers, type BriefAnswers, type BriefSave, type ReferenceTag, type StoredBriefAnswers } from '@/lib/validations/brief';
 
 export interface Brief {
   styleId: string;
@@ -49,34 +49,6 @@ function forViewer(user: SessionUser, answers: BriefAnswers): { answers: BriefAn
 }
 
 interface BriefRow { style_id: string; answers: unknown; version: number; updated_at: Date; updated_by_name: string | null }
-
-/** Stored answers read through the schema, with the fields that did not pass it put back to their default. */
-export interface StoredBriefAnswers {
-  answers: BriefAnswers;
-  /** The fields that failed the schema and were reset to their default (empty when the answers passed). */
-  repaired: (keyof BriefAnswers)[];
-}
-
-/**
- * Parses stored answers, so answers saved before a field existed get its default. Answers that fail
- * the schema keep every field that passes it alone; the rest take their default and are named.
- */
-export function readBriefAnswers(stored: unknown): StoredBriefAnswers {
-  const parsed = briefAnswersSchema.safeParse(stored);
-  if (parsed.success) return { answers: parsed.data, repaired: [] };
-  const raw = stored && typeof stored === 'object' && !Array.isArray(stored) ? (stored as Record<string, unknown>) : {};
-  const answers: Record<string, unknown> = { ...emptyBrief };
-  const repaired: (keyof BriefAnswers)[] = [];
-  for (const key of Object.keys(emptyBrief) as (keyof BriefAnswers)[]) {
-    const one = briefAnswersSchema.shape[key].safeParse(raw[key]);
-    if (one.success) answers[key] = one.data;
-    else repaired.push(key);
-  }
-  const whole = briefAnswersSchema.safeParse(answers);
-  if (whole.success) return { answers: whole.data, repaired };
-  // Only the cross-field check is left (a delivery before the sample): the later date goes.
-  return { answers: { ...(answers as BriefAnswers), deliveryDate: null }, repaired: [...repaired, 'deliveryDate'] };
-}
 
 /** The brief of a style; the empty brief (version 0) while none is saved. */
 export async function loadBrief(user: SessionUser, styleId: string, q: Db = db()): Promise<Brief> {
