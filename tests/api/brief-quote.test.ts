@@ -3,8 +3,9 @@
  * clear 400s, 409 on stale, history entries, uploads checked by content, and roles — the mill and
  * the client never see a cost, a price or a margin anywhere they can reach.
  */
-import { beforeAll, describe, expect, it } from 'vitest';
-import { as, baseUrl, styleByCode, type Client } from './helpers';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import knexFactory, { type Knex } from 'knex';
+import { as, baseUrl, newStyleBody, styleByCode, type Client } from './helpers';
 
 const tinyPng = Buffer.from(
   'iVBORw0KGgoAAAANSUhEUgAAAAIAAAACCAIAAAD91JpzAAAAFklEQVR4nGP8z8DAwMDAxMDAwMDAAAANHQEDasKb6QAAAABJRU5ErkJggg==',
@@ -21,12 +22,15 @@ async function upload(c: Client, styleId: string, bytes: Uint8Array, fields: Rec
 }
 
 describe('brief and quote routes', () => {
+  afterAll(async () => { await knex?.destroy(); });
   let designer: Client;
   let client: Client;
   let mill: Client;
   let styleId: string;
+  let knex: Knex;
 
   beforeAll(async () => {
+    knex = knexFactory({ client: 'pg', connection: inject('databaseUrl'), pool: { min: 0, max: 2 } });
     designer = await as('designer');
     client = await as('client');
     mill = await as('mill');
@@ -172,6 +176,25 @@ describe('brief and quote routes', () => {
     const csv = await designer.get(`/api/styles/${styleId}/quote/export?format=csv`);
     expect(csv.text.split('\r\n')[0]).toMatch(/^style,size,line/);
     expect(csv.text).toContain('HF27-101,M,Total cost');
+  });
+
+  it('reads stored answers that fail the schema the same way for the brief and the quote, and says so in the quote', async () => {
+    const created = await designer.post('/api/styles', newStyleBody());
+    expect(created.status).toBe(201);
+    const id = created.json.style.id as string;
+    const saved = await designer.put(`/api/styles/${id}/brief`, { version: 0, answers: { sport: 'Cycling', targetPrice: 31.2, orderBySize: { S: 10, M: 20 }, tones: 2 } });
+    expect(saved.status).toBe(200);
+    // An answer stored under an older rule (more tones than the form takes now).
+    await knex('briefs').where({ style_id: id }).update({ answers: knex.raw(`answers || '{"tones": 40}'::jsonb`) });
+    const brief = (await designer.get(`/api/styles/${id}/brief`)).json.brief;
+    expect(brief.answers.targetPrice).toBe(31.2);
+    expect(brief.answers.tones).toBeNull();
+    const quote = (await designer.get(`/api/styles/${id}/quote`)).json.quote;
+    expect(quote.quote.targetPricePerGarment).toBe(31.2);
+    expect(quote.quote.sizes.find((s: { size: string }) => s.size === 'M').garments).toBe(20);
+    expect(quote.quote.problems.join(' ')).toMatch(/saved brief had answers .*number of tones/);
+    const checks = (await designer.get(`/api/styles/${id}/brief/checks`)).json;
+    expect(checks.saved).toBe(true);
   });
 
   it('the mill and the client get 403 on every cost route', async () => {
