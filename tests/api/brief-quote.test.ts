@@ -154,6 +154,18 @@ describe('brief and quote routes', () => {
     expect((await mill.get(`/api/styles/${styleId}/brief/checks`)).status).toBe(403);
   });
 
+  it('counts tones for the client from the colours the colour section shows them (approved lab dips only)', async () => {
+    type Cw = { name: string; targets: unknown[] };
+    const planOf = (cws: Cw[]) => cws.map((c) => `${c.name}: ${c.targets.length}`).join(', ');
+    const tonesFor = async (c: Client) => ((await c.get(`/api/styles/${styleId}/brief/checks`)).json.checks as { id: string; plan: string }[]).find((x) => x.id === 'tones');
+    const staffColours = (await designer.get(`/api/styles/${styleId}/colourways`)).json.colourways as Cw[];
+    const clientColours = (await client.get(`/api/styles/${styleId}/colourways`)).json.colourways as Cw[];
+    // The demo style has targets without an approved dip, so the two views differ and the check can fail.
+    expect(clientColours.reduce((a, c) => a + c.targets.length, 0)).toBeLessThan(staffColours.reduce((a, c) => a + c.targets.length, 0));
+    expect((await tonesFor(designer))?.plan).toBe(planOf(staffColours));
+    expect((await tonesFor(client))?.plan).toBe(clientColours.length ? planOf(clientColours) : '—');
+  });
+
   it('quotes per size with how each figure was computed, saves entries with versions, downloads PDF and CSV', async () => {
     const res = await designer.get(`/api/styles/${styleId}/quote`);
     expect(res.status).toBe(200);
