@@ -9,7 +9,7 @@ import { StudioRates } from './studio-rates';
 import type { QuoteInputs } from '@/lib/validations/quote';
 import { Card, Notice } from '@/components/ui/card';
 import { Button, ButtonLink } from '@/components/ui/button';
-import { Field, Input } from '@/components/ui/field';
+import { Field, Input, Select } from '@/components/ui/field';
 
 const key = (styleId: string) => ['quote', styleId] as const;
 const money = (n: number | null, c: string) => (n === null ? '—' : `${n.toFixed(2)} ${c}`);
@@ -87,7 +87,7 @@ function SizeTable({ q }: { q: StyleQuote }) {
 function Entries({ q, onSaved, editable }: { q: StyleQuote; onSaved: (q: StyleQuote) => void; editable: boolean }) {
   const [v, setV] = useState(() => ({
     speedPerMinute: q.inputs.speedPerMinute?.toString() ?? '', feedersPerCourse: String(q.inputs.feedersPerCourse), efficiency: q.inputs.efficiency?.toString() ?? '',
-    minuteRate: q.inputs.minuteRate?.toString() ?? '', includeTrims: q.inputs.includeTrims,
+    minuteRate: q.inputs.minuteRate?.toString() ?? '', millId: q.inputs.millId ?? '', includeTrims: q.inputs.includeTrims,
     makingUp: Object.fromEntries(makingUpKeys.map((k) => [k, q.inputs.makingUp[k]?.toString() ?? ''])) as Record<(typeof makingUpKeys)[number], string>,
   }));
   const [errors, setErrors] = useState<Record<string, string[]>>({});
@@ -98,6 +98,7 @@ function Entries({ q, onSaved, editable }: { q: StyleQuote; onSaved: (q: StyleQu
     setMsg(null);
     const inputs: QuoteInputs = {
       speedPerMinute: numOrNull(v.speedPerMinute), feedersPerCourse: Number(v.feedersPerCourse), efficiency: numOrNull(v.efficiency), minuteRate: numOrNull(v.minuteRate),
+      millId: v.millId === '' ? null : v.millId,
       includeTrims: v.includeTrims, makingUp: Object.fromEntries(makingUpKeys.map((k) => [k, numOrNull(v.makingUp[k])])) as QuoteInputs['makingUp'],
     };
     try {
@@ -125,6 +126,14 @@ function Entries({ q, onSaved, editable }: { q: StyleQuote; onSaved: (q: StyleQu
         </Field>
         <Field label={`Machine-minute rate, ${r.currency}`} error={err('minuteRate')} hint={`Empty: ${r.machineMinuteRate}${example('machineMinuteRate')}`}>
           {(id) => <Input id={id} inputMode="decimal" value={v.minuteRate} onChange={(e) => setV({ ...v, minuteRate: e.target.value })} />}
+        </Field>
+        <Field label="Mill whose minute rate is used" error={err('millId')} hint="Used when no rate is entered for this style">
+          {(id) => (
+            <Select id={id} value={v.millId} onChange={(e) => setV({ ...v, millId: e.target.value })}>
+              <option value="">The studio rate</option>
+              {q.studio.mills.map((m) => <option key={m.id} value={m.id}>{m.name}{m.minuteRate === null ? ' (no rate set)' : `: ${m.minuteRate} ${r.currency}/min`}</option>)}
+            </Select>
+          )}
         </Field>
         {makingUpKeys.map((k) => (
           <Field key={k} label={`${makingUpLabels[k]} per garment, ${r.currency}`} error={err(`makingUp.${k}`)} hint={`Empty: ${r.makingUp[k]}${example(`makingUp.${k}`)}`}>

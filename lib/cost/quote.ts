@@ -25,6 +25,8 @@ export interface QuoteMachine {
   efficiency: number;
   /** Machine cost per minute of knitting. */
   minuteRate: number;
+  /** Whose rate `minuteRate` is, in words (the studio's, a mill's, entered for the style). */
+  minuteRateFrom?: string;
 }
 
 export interface QuoteTrim {
@@ -190,7 +192,7 @@ export function computeQuote(input: QuoteInput): Quote {
       how:
         `${Math.round(s.courses)} courses ÷ (${words.speed} × ${words.systems} ÷ ${machine.feedersPerCourse} per course ` +
         `= ${g1(time.coursesPerMinute)} courses/min) ÷ ${pct(machine.efficiency)} efficiency = ${time.minutes.toFixed(2)} min × ` +
-        `${m2(machine.minuteRate)} ${currency}/min = ${m2(mc)} ${currency}`,
+        `${m2(machine.minuteRate)} ${currency}/min${machine.minuteRateFrom ? ` (${machine.minuteRateFrom})` : ''} = ${m2(mc)} ${currency}`,
     });
     for (const k of makingUpKeys) {
       const v = input.makingUp[k];

@@ -209,6 +209,48 @@ describe('brief and quote routes', () => {
     expect(checks.saved).toBe(true);
   });
 
+  it('uses the machine-minute rate of the mill the quote names, and says so in the knitting line', async () => {
+    const admin = await as('admin');
+    const orgs = (await admin.get('/api/organisations')).json.organisations as { id: string; name: string; kind: string }[];
+    const mill = orgs.find((o) => o.kind === 'mill')!;
+    const other = orgs.filter((o) => o.kind === 'mill')[1]!;
+    const clientOrg = orgs.find((o) => o.kind === 'client')!;
+    const studio = (await designer.get('/api/settings/costing')).json.costing;
+    // The studio rates as set (a PUT writes them all), so only the mill rates change here.
+    const rates: Record<string, unknown> = { makingUp: {}, trimUnitCost: {} };
+    for (const [k, v] of Object.entries(studio.rates as Record<string, unknown>)) {
+      if (v && typeof v === 'object') {
+        for (const [kk, vv] of Object.entries(v)) if (!studio.defaults.includes(`${k}.${kk}`)) (rates[k] as Record<string, unknown>)[kk] = vv;
+      } else if (!studio.defaults.includes(k)) rates[k] = v;
+    }
+    const set = await designer.put('/api/settings/costing', { rates, mills: { [mill.id]: 0.61, [other.id]: null } });
+    expect(set.status).toBe(200);
+    expect(set.json.costing.mills.find((m: { id: string }) => m.id === mill.id).minuteRate).toBe(0.61);
+    expect((await designer.put('/api/settings/costing', { rates, mills: { [clientOrg.id]: 0.5 } })).status).toBe(400);
+    expect(set.json.costing.defaults).toEqual(studio.defaults);
+    const q = (await designer.get(`/api/styles/${styleId}/quote`)).json.quote;
+    const withMill = await designer.put(`/api/styles/${styleId}/quote`, { version: q.version, inputs: { ...q.inputs, minuteRate: null, millId: mill.id } });
+    expect(withMill.status).toBe(200);
+    const m = withMill.json.quote.quote.sizes.find((s: { size: string }) => s.size === 'M');
+    const knitting = m.lines.find((l: { key: string }) => l.key === 'knitting');
+    expect(knitting.how).toContain(`0.61 ${withMill.json.quote.quote.currency}/min (rate of ${mill.name})`);
+    expect(knitting.amount).toBeCloseTo(m.knitting.minutes * 0.61, 10);
+    // A mill with no rate: the studio rate, and the quote says why.
+    const v = withMill.json.quote.version;
+    const noRate = await designer.put(`/api/styles/${styleId}/quote`, { version: v, inputs: { ...withMill.json.quote.inputs, millId: other.id } });
+    expect(noRate.json.quote.machine.minuteRate).toBe(studio.rates.machineMinuteRate);
+    expect(noRate.json.quote.quote.problems.join(' ')).toContain(`${other.name} has no machine-minute rate`);
+    // Only the studio mills: a client organisation or an unknown id is a 400, and nothing is saved.
+    for (const bad of [clientOrg.id, '00000000-0000-4000-8000-000000000000', 'not-an-id']) {
+      const res = await designer.put(`/api/styles/${styleId}/quote`, { version: noRate.json.quote.version, inputs: { ...noRate.json.quote.inputs, millId: bad } });
+      expect(res.status, bad).toBe(400);
+      expect(res.json.fieldErrors['inputs.millId'], bad).toBeDefined();
+    }
+    // Back to the studio rate for the tests below.
+    await designer.put(`/api/styles/${styleId}/quote`, { version: noRate.json.quote.version, inputs: { ...noRate.json.quote.inputs, millId: null } });
+    await designer.put('/api/settings/costing', { rates, mills: { [mill.id]: null } });
+  });
+
   it('the mill and the client get 403 on every cost route', async () => {
     for (const c of [client, mill]) {
       expect((await c.get(`/api/styles/${styleId}/quote`)).status).toBe(403);

@@ -79,6 +79,11 @@ describe('computeQuote', () => {
     expect(q.order.how.revenue).toBe('20.00 EUR target × 250 garments = 5000.00 EUR');
     expect(q.order.how.margin).toBe('5000.00 at the target − 1907.36 cost = 3092.64 EUR, 61.9 % of the target');
   });
+  it('says whose machine-minute rate the knitting line used', () => {
+    const q = computeQuote(input({ machine: { ...input().machine, minuteRateFrom: 'rate of Test Mill' } }));
+    expect(q.sizes[0]!.lines.find((l) => l.key === 'knitting')!.how).toMatch(/× 0\.40 EUR\/min \(rate of Test Mill\) = 2\.50 EUR$/);
+    expect(computeQuote(input()).sizes[0]!.lines.find((l) => l.key === 'knitting')!.how).toMatch(/× 0\.40 EUR\/min = 2\.50 EUR$/);
+  });
   it('has no margin explanation without a target price', () => {
     const q = computeQuote(input({ targetPricePerGarment: null }));
     expect(q.sizes[0]!.how.margin).toBeNull();
