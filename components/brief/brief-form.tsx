@@ -15,7 +15,7 @@ import {
 import { Field, Input, Select } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/card';
-import { briefKey, checksKey } from './use-brief';
+import { briefKey, briefVersionsKey, checksKey } from './use-brief';
 
 type FormIn = z.input<typeof briefAnswersSchema> & { orderBySize?: Record<string, unknown> };
 
@@ -51,7 +51,7 @@ export function BriefForm({ styleId, brief, sizes, readOnly }: { styleId: string
       setVersion(res.brief.version);
       reset(res.brief.answers as FormIn);
       qc.setQueryData(briefKey(styleId), res.brief);
-      await qc.invalidateQueries({ queryKey: checksKey(styleId) });
+      await Promise.all([qc.invalidateQueries({ queryKey: checksKey(styleId) }), qc.invalidateQueries({ queryKey: briefVersionsKey(styleId) })]);
       setSavedAt(new Date().toLocaleTimeString());
     } catch (x) {
       if (x instanceof ApiError) {

@@ -4,14 +4,15 @@ import { Card, Notice } from '@/components/ui/card';
 import { BriefForm } from './brief-form';
 import { ReferenceBoard } from './reference-board';
 import { BriefChecksPanel } from './brief-checks-panel';
-import type { Brief, BriefReference } from '@/lib/db/briefs';
+import { BriefVersions } from './brief-versions';
+import type { Brief, BriefReference, BriefVersion } from '@/lib/db/briefs';
 import type { BriefCheck } from '@/lib/rules/brief';
 import { useBrief, useBriefChecks, useReferences } from './use-brief';
 
 /** The questionnaire, the reference board and the Brief vs plan panel, below the style form. */
 export function BriefWorkspace({ styleId, sizes, editable, initial }: {
   styleId: string; sizes: string[]; editable: boolean;
-  initial: { brief: Brief; references: BriefReference[]; checks: { checks: BriefCheck[]; saved: boolean } };
+  initial: { brief: Brief; references: BriefReference[]; checks: { checks: BriefCheck[]; saved: boolean }; versions: BriefVersion[] | null };
 }) {
   const brief = useBrief(styleId, initial.brief);
   const refs = useReferences(styleId, initial.references);
@@ -28,14 +29,21 @@ export function BriefWorkspace({ styleId, sizes, editable, initial }: {
           {refs.data ? <ReferenceBoard styleId={styleId} references={refs.data} readOnly={!editable} /> : refs.error ? <Notice tone="error">{refs.error.message}</Notice> : <p className="text-sm text-ink-faint">Loading…</p>}
         </Card>
       </div>
-      <Card title="Brief vs plan">
-        {checks.data ? (
-          <>
-            {checks.data.saved ? null : <p className="mb-2 text-xs text-ink-faint">No brief saved yet: fill in the questionnaire to check the plan against it.</p>}
-            <BriefChecksPanel checks={checks.data.checks} />
-          </>
-        ) : checks.error ? <Notice tone="error">{checks.error.message}</Notice> : <p className="text-sm text-ink-faint">Checking…</p>}
-      </Card>
+      <div className="space-y-5">
+        <Card title="Brief vs plan">
+          {checks.data ? (
+            <>
+              {checks.data.saved ? null : <p className="mb-2 text-xs text-ink-faint">No brief saved yet: fill in the questionnaire to check the plan against it.</p>}
+              <BriefChecksPanel checks={checks.data.checks} />
+            </>
+          ) : checks.error ? <Notice tone="error">{checks.error.message}</Notice> : <p className="text-sm text-ink-faint">Checking…</p>}
+        </Card>
+        {initial.versions ? (
+          <Card title="Earlier versions">
+            <BriefVersions styleId={styleId} initial={initial.versions} />
+          </Card>
+        ) : null}
+      </div>
     </div>
   );
 }

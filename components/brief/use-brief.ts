@@ -8,6 +8,7 @@ import type { BriefCheck } from '@/lib/rules/brief';
 export const briefKey = (styleId: string) => ['brief', styleId] as const;
 export const referencesKey = (styleId: string) => ['brief-references', styleId] as const;
 export const checksKey = (styleId: string) => ['brief-checks', styleId] as const;
+export const briefVersionsKey = (styleId: string) => ['brief-versions', styleId] as const;
 
 export function useBrief(styleId: string, initialData?: Brief) {
   return useQuery({ queryKey: briefKey(styleId), initialData, staleTime: 30_000, queryFn: () => api<{ brief: Brief }>(`/api/styles/${styleId}/brief`).then((r) => r.brief) });

@@ -9,7 +9,7 @@ import { StudioRates } from './studio-rates';
 import type { QuoteInputs } from '@/lib/validations/quote';
 import { Card, Notice } from '@/components/ui/card';
 import { Button, ButtonLink } from '@/components/ui/button';
-import { Field, Input } from '@/components/ui/field';
+import { Field, Input, Select } from '@/components/ui/field';
 
 const key = (styleId: string) => ['quote', styleId] as const;
 const money = (n: number | null, c: string) => (n === null ? '—' : `${n.toFixed(2)} ${c}`);
@@ -17,6 +17,7 @@ const numOrNull = (v: string) => (v.trim() === '' ? null : Number(v.replace(',',
 
 function SizeTable({ q }: { q: StyleQuote }) {
   const [open, setOpen] = useState<string | null>(null);
+  const [orderOpen, setOrderOpen] = useState(false);
   const c = q.quote.currency;
   return (
     <table className="w-full text-sm" data-testid="quote-table">
@@ -44,6 +45,14 @@ function SizeTable({ q }: { q: StyleQuote }) {
                     {s.lines.map((l) => (
                       <tr key={l.key} className="border-t border-rule/60"><td className="py-1 pr-2 text-ink">{l.label}</td><td className="pr-2 text-ink-soft">{l.how}</td><td className="text-right">{money(l.amount, c)}</td></tr>
                     ))}
+                    {[
+                      { key: 'total', label: 'Cost per garment', how: s.how.perGarment, amount: s.perGarment },
+                      { key: 'margin', label: 'Margin per garment', how: s.how.margin, amount: s.marginPerGarment },
+                      { key: 'order-cost', label: `Order cost, size ${s.size}`, how: s.how.orderCost, amount: s.orderCost },
+                      { key: 'order-margin', label: `Order margin, size ${s.size}`, how: s.how.orderMargin, amount: s.orderMargin },
+                    ].map((t) => (t.how === null ? null : (
+                      <tr key={t.key} className="border-t border-rule font-medium"><td className="py-1 pr-2 text-ink">{t.label}</td><td className="pr-2 font-normal text-ink-soft">{t.how}</td><td className="text-right">{money(t.amount, c)}</td></tr>
+                    )))}
                   </tbody>
                 </table>
               </td></tr>
@@ -52,8 +61,24 @@ function SizeTable({ q }: { q: StyleQuote }) {
         ))}
         <tr className="border-t-2 border-rule-strong font-medium">
           <td className="py-1.5">All</td><td>{q.quote.order.garments}</td><td /><td /><td /><td className="text-right text-xs text-ink-soft">{q.quote.targetPricePerGarment === null ? 'no target price' : `target ${money(q.quote.targetPricePerGarment, c)}`}</td>
-          <td className="text-right">{money(q.quote.order.cost, c)}</td><td className="text-right">{money(q.quote.order.margin, c)}</td><td />
+          <td className="text-right">{money(q.quote.order.cost, c)}</td><td className="text-right">{money(q.quote.order.margin, c)}</td>
+          <td className="text-right"><Button type="button" size="sm" variant="ghost" aria-expanded={orderOpen} onClick={() => setOrderOpen(!orderOpen)}>{orderOpen ? 'Hide' : 'How'}</Button></td>
         </tr>
+        {orderOpen ? (
+          <tr><td colSpan={9} className="bg-paper px-2 pb-2">
+            <table className="w-full text-xs" aria-label="How the order totals were computed">
+              <tbody>
+                {[
+                  { key: 'cost', label: 'Order cost', how: q.quote.order.how.cost, amount: q.quote.order.cost },
+                  { key: 'revenue', label: 'Order at the target price', how: q.quote.order.how.revenue, amount: q.quote.order.revenue },
+                  { key: 'margin', label: 'Order margin', how: q.quote.order.how.margin, amount: q.quote.order.margin },
+                ].map((t) => (t.how === null ? null : (
+                  <tr key={t.key} className="border-t border-rule/60"><td className="py-1 pr-2 text-ink">{t.label}</td><td className="pr-2 text-ink-soft">{t.how}</td><td className="text-right">{money(t.amount, c)}</td></tr>
+                )))}
+              </tbody>
+            </table>
+          </td></tr>
+        ) : null}
       </tbody>
     </table>
   );
@@ -62,7 +87,7 @@ function SizeTable({ q }: { q: StyleQuote }) {
 function Entries({ q, onSaved, editable }: { q: StyleQuote; onSaved: (q: StyleQuote) => void; editable: boolean }) {
   const [v, setV] = useState(() => ({
     speedPerMinute: q.inputs.speedPerMinute?.toString() ?? '', feedersPerCourse: String(q.inputs.feedersPerCourse), efficiency: q.inputs.efficiency?.toString() ?? '',
-    minuteRate: q.inputs.minuteRate?.toString() ?? '', includeTrims: q.inputs.includeTrims,
+    minuteRate: q.inputs.minuteRate?.toString() ?? '', millId: q.inputs.millId ?? '', includeTrims: q.inputs.includeTrims,
     makingUp: Object.fromEntries(makingUpKeys.map((k) => [k, q.inputs.makingUp[k]?.toString() ?? ''])) as Record<(typeof makingUpKeys)[number], string>,
   }));
   const [errors, setErrors] = useState<Record<string, string[]>>({});
@@ -73,6 +98,7 @@ function Entries({ q, onSaved, editable }: { q: StyleQuote; onSaved: (q: StyleQu
     setMsg(null);
     const inputs: QuoteInputs = {
       speedPerMinute: numOrNull(v.speedPerMinute), feedersPerCourse: Number(v.feedersPerCourse), efficiency: numOrNull(v.efficiency), minuteRate: numOrNull(v.minuteRate),
+      millId: v.millId === '' ? null : v.millId,
       includeTrims: v.includeTrims, makingUp: Object.fromEntries(makingUpKeys.map((k) => [k, numOrNull(v.makingUp[k])])) as QuoteInputs['makingUp'],
     };
     try {
@@ -100,6 +126,14 @@ function Entries({ q, onSaved, editable }: { q: StyleQuote; onSaved: (q: StyleQu
         </Field>
         <Field label={`Machine-minute rate, ${r.currency}`} error={err('minuteRate')} hint={`Empty: ${r.machineMinuteRate}${example('machineMinuteRate')}`}>
           {(id) => <Input id={id} inputMode="decimal" value={v.minuteRate} onChange={(e) => setV({ ...v, minuteRate: e.target.value })} />}
+        </Field>
+        <Field label="Mill whose minute rate is used" error={err('millId')} hint="Used when no rate is entered for this style">
+          {(id) => (
+            <Select id={id} value={v.millId} onChange={(e) => setV({ ...v, millId: e.target.value })}>
+              <option value="">The studio rate</option>
+              {q.studio.mills.map((m) => <option key={m.id} value={m.id}>{m.name}{m.minuteRate === null ? ' (no rate set)' : `: ${m.minuteRate} ${r.currency}/min`}</option>)}
+            </Select>
+          )}
         </Field>
         {makingUpKeys.map((k) => (
           <Field key={k} label={`${makingUpLabels[k]} per garment, ${r.currency}`} error={err(`makingUp.${k}`)} hint={`Empty: ${r.makingUp[k]}${example(`makingUp.${k}`)}`}>

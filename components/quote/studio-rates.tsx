@@ -32,6 +32,7 @@ const exampleOf = (s: StudioCostRates, k: string): string => {
 /** The studio's costing rates: blank takes the example value. */
 export function StudioRates({ studio, editable, onSaved }: { studio: StudioCostRates; editable: boolean; onSaved: () => void }) {
   const [v, setV] = useState<Flat>(() => flatten(studio));
+  const [mills, setMills] = useState<Flat>(() => Object.fromEntries(studio.mills.map((m) => [m.id, m.minuteRate === null ? '' : String(m.minuteRate)])));
   const [errors, setErrors] = useState<Record<string, string[]>>({});
   const [msg, setMsg] = useState<string | null>(null);
   const num = (k: string) => (v[k]!.trim() === '' ? null : Number(v[k]!.replace(',', '.')));
@@ -44,7 +45,8 @@ export function StudioRates({ studio, editable, onSaved }: { studio: StudioCostR
       trimUnitCost: Object.fromEntries(trimCostKinds.map((k) => [k, num(`trimUnitCost.${k}`)])),
     };
     try {
-      await api('/api/settings/costing', { method: 'PUT', json: { rates } });
+      const millRates = Object.fromEntries(Object.entries(mills).map(([id, t]) => [id, t.trim() === '' ? null : Number(t.replace(',', '.'))]));
+      await api('/api/settings/costing', { method: 'PUT', json: { rates, mills: millRates } });
       setErrors({});
       setMsg('Saved for the studio');
       onSaved();
@@ -63,6 +65,11 @@ export function StudioRates({ studio, editable, onSaved }: { studio: StudioCostR
         {scalar.map((k) => field(k, labels[k]))}
         {makingUpKeys.map((k) => field(`makingUp.${k}`, `${makingUpLabels[k]} per garment`))}
         {trimCostKinds.map((k) => field(`trimUnitCost.${k}`, `Trim: ${k}, per piece`))}
+        {studio.mills.map((m) => (
+          <Field key={m.id} label={`Machine-minute rate of ${m.name}`} error={errors[`mills.${m.id}`]?.[0]} hint="Blank: none set; quotes choosing this mill use the studio rate">
+            {(id) => <Input id={id} inputMode="decimal" value={mills[m.id] ?? ''} onChange={(e) => setMills({ ...mills, [m.id]: e.target.value })} />}
+          </Field>
+        ))}
       </fieldset>
       {editable ? <div className="flex items-center gap-3"><Button type="submit">Save studio rates</Button>{msg ? <span role="status" className="text-xs text-ink-soft">{msg}</span> : null}</div> : null}
     </form>

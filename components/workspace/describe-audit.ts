@@ -33,7 +33,26 @@ const verbs: Record<string, string> = {
   'mill-pack.generate': 'Built the mill pack of',
   'file.upload': 'Uploaded',
   'mail.failed': 'Could not e-mail',
+  'brief.save': 'Saved the brief',
+  'brief.reference.add': 'Added a reference image',
+  'brief.reference.edit': 'Edited a reference image',
+  'brief.reference.reorder': 'Rearranged the reference board',
+  'brief.reference.remove': 'Removed a reference image',
+  'quote.save': 'Saved the quote entries',
+  'studio.costing': 'Changed the studio costing rates',
 };
+
+/** A stored field name in plain words: `targetPrice` → `target price`. */
+function fieldWords(field: string): string {
+  return field.replace(/([a-z0-9])([A-Z])/g, '$1 $2').toLowerCase();
+}
+
+/** The `fields` of an entry in plain words, or null when it names none. */
+function fieldList(d: Record<string, unknown>): string | null {
+  if (!Array.isArray(d.fields)) return null;
+  const names = d.fields.filter((f): f is string => typeof f === 'string');
+  return names.length ? names.map(fieldWords).join(', ') : 'no fields';
+}
 
 /** One line of plain words for an audit entry. */
 export function describeAudit(action: string, details: Record<string, unknown>): string {
@@ -43,6 +62,7 @@ export function describeAudit(action: string, details: Record<string, unknown>):
   if (action === 'body-map.save' && typeof details.zones === 'number') return `${verb} (${details.zones} zones)`;
   if (action.startsWith('colourway.') || action.startsWith('lab-dip.')) return describeColour(action, verb, details);
   if (action.startsWith('fit.')) return describeFit(action, verb, details);
+  if (action.startsWith('brief.') || action === 'quote.save' || action === 'studio.costing') return describeBrief(action, verb, details);
   if (/^(style\.release|proposal\.|test-knit\.|mill-pack\.|file\.|mail\.)/.test(action)) return describeMill(action, verb, details);
   return verb;
 }
@@ -72,6 +92,23 @@ function describeMill(action: string, verb: string, d: Record<string, unknown>):
       return `${verb} ${Array.isArray(d.failed) && d.failed.length ? d.failed.join(', ') : 'the recipients'}`;
     default:
       return `${verb} ${rev}`.trim();
+  }
+}
+
+/** Brief, reference-board and quote entries: which fields changed (never their values), which image. */
+function describeBrief(action: string, verb: string, d: Record<string, unknown>): string {
+  const text = (v: unknown) => (typeof v === 'string' ? v : '');
+  switch (action) {
+    case 'brief.reference.add':
+      return `${verb}${text(d.name) ? ` ${text(d.name)}` : ''}${text(d.tag) ? ` (${text(d.tag)})` : ''}`;
+    case 'brief.reference.remove':
+      return `${verb}${text(d.name) ? ` ${text(d.name)}` : ''}`;
+    case 'brief.reference.reorder':
+      return typeof d.count === 'number' ? `${verb} (${d.count} image${d.count === 1 ? '' : 's'})` : verb;
+    default: {
+      const fields = fieldList(d);
+      return fields ? `${verb}: ${fields}` : verb;
+    }
   }
 }
 

@@ -24,7 +24,7 @@ async function sessionUser(knex: Knex, email: string): Promise<SessionUser> {
 }
 
 export async function seed(knex: Knex): Promise<void> {
-  await knex.raw('truncate table brief_references, briefs, quotes');
+  await knex.raw('truncate table brief_references, brief_versions, briefs, quotes');
   await knex('files').where({ purpose: 'brief-reference' }).del();
   await knex('audit_log').whereLike('action', 'brief.%').orWhereLike('action', 'quote.%').del();
 

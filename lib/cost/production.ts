@@ -43,7 +43,7 @@ export interface KnittingTime {
 /**
  * Knitting time of one garment: courses ÷ (rpm × feeders ÷ feeders per course), divided by the
  * efficiency. Source: courses/min from the Textile Technical Handbook (2023), p. 147 (i); the
- * efficiency factor as in the production formula of references.md §7(g).
+ * efficiency factor as in the textiletutorials.com production formula (references.md §7(g)).
  */
 export function knittingTime(input: KnittingTimeInput): KnittingTime {
   if (!(input.courses >= 0) || !Number.isFinite(input.courses)) throw new RangeError(`Courses must be a number ≥ 0 (got ${input.courses}).`);
@@ -54,10 +54,12 @@ export function knittingTime(input: KnittingTimeInput): KnittingTime {
 }
 
 export interface CircularProductionInput {
-  /** Cylinder diameter, inches. */
-  diameterIn: number;
-  /** Needles per inch. */
-  gauge: number;
+  /** Needles in the cylinder, when known (a machine's count is π × D × E rounded to its needle multiple). */
+  needles?: number;
+  /** Cylinder diameter, inches: with `gauge`, gives the needles (π × D × E) when `needles` is not given. */
+  diameterIn?: number;
+  /** Needles per inch: with `diameterIn`, gives the needles when `needles` is not given. */
+  gauge?: number;
   rpm: number;
   feeders: number;
   /** Loop (stitch) length, mm. */
@@ -65,22 +67,39 @@ export interface CircularProductionInput {
   /** Linear density of the yarn, tex. */
   tex: number;
   efficiency: number;
-  /** π as used in the calculation; the handbook example uses 3.14. */
+  /** π as used for the needles from diameter and gauge; the worked example uses 3.14. */
   pi?: number;
 }
 
 /**
- * Production of a circular machine, kg per minute of running: π·D·E·rpm·F·l·tex·η ÷ 10⁹ (needles =
- * π × D × E; each feeder lays needles × l mm of yarn per revolution; mm × tex ÷ 10⁹ = kg).
- * Source: references.md §7(g), production in kg/h = π·D·E·rpm·F·l·tex·60·η / 10⁹.
+ * Needles of the cylinder: `needles` when given, else π × diameter (in) × gauge (needles per inch).
+ * Source: textiletutorials.com, "Needle number of machine, = ∏× diameter of cylinder× gauge".
+ */
+export function cylinderNeedles(input: Pick<CircularProductionInput, 'needles' | 'diameterIn' | 'gauge' | 'pi'>): number {
+  if (input.needles !== undefined) {
+    if (!(input.needles > 0) || !Number.isFinite(input.needles)) throw new RangeError(`needles must be above zero (got ${input.needles}).`);
+    return input.needles;
+  }
+  const { diameterIn, gauge } = input;
+  if (diameterIn === undefined || gauge === undefined) throw new RangeError('Give the needles, or the cylinder diameter and the gauge.');
+  if (!(diameterIn > 0)) throw new RangeError(`diameterIn must be above zero (got ${diameterIn}).`);
+  if (!(gauge > 0)) throw new RangeError(`gauge must be above zero (got ${gauge}).`);
+  return (input.pi ?? Math.PI) * diameterIn * gauge;
+}
+
+/**
+ * Production of a circular machine, kg per minute of running: N·rpm·F·l·tex·η ÷ 10⁹, with N the
+ * needles (given, or π × D × E); each feeder lays N × l mm of yarn per revolution; mm × tex ÷ 10⁹ = kg.
+ * Source: textiletutorials.com, production kg/h = "∏×D×G× RPM of cylinder × Number of feeder × loop
+ * length in mm × tex×60× efficiency / 1000×1000×1000" (references.md §7(g)).
  */
 export function circularProductionKgPerMinute(input: CircularProductionInput): number {
-  const pi = input.pi ?? Math.PI;
-  for (const [name, v] of Object.entries({ diameterIn: input.diameterIn, gauge: input.gauge, rpm: input.rpm, feeders: input.feeders, loopMm: input.loopMm, tex: input.tex })) {
+  const needles = cylinderNeedles(input);
+  for (const [name, v] of Object.entries({ rpm: input.rpm, feeders: input.feeders, loopMm: input.loopMm, tex: input.tex })) {
     if (!(v > 0)) throw new RangeError(`${name} must be above zero (got ${v}).`);
   }
   if (!(input.efficiency > 0 && input.efficiency <= 1)) throw new RangeError(`The efficiency lies in (0, 1] (got ${input.efficiency}).`);
-  return (pi * input.diameterIn * input.gauge * input.rpm * input.feeders * input.loopMm * input.tex * input.efficiency) / 1e9;
+  return (needles * input.rpm * input.feeders * input.loopMm * input.tex * input.efficiency) / 1e9;
 }
 
 /** Production in kg per hour (× 60 minutes); references.md §7(g). */
@@ -88,7 +107,7 @@ export function circularProductionKgPerHour(input: CircularProductionInput): num
   return circularProductionKgPerMinute(input) * 60;
 }
 
-/** Production in kg for a shift of `minutes` (the handbook example: 8 h = 480 min). */
+/** Production in kg for a shift of `minutes` (the textiletutorials.com worked example: 8 h = 480 min). */
 export function circularProductionKgPerShift(input: CircularProductionInput, minutes = 480): number {
   if (!(minutes > 0)) throw new RangeError('A shift lasts more than zero minutes.');
   return circularProductionKgPerMinute(input) * minutes;

@@ -14,6 +14,8 @@ export interface QuoteYarn {
 }
 
 export interface QuoteMachine {
+  /** A circular machine (speed in revolutions per minute) or a V-bed (carriage passes per minute, its knitting systems as feeders). */
+  kind: 'circular' | 'flat';
   /** Speed: revolutions (circular) or carriage passes (V-bed) per minute. */
   speedPerMinute: number;
   /** Knitting systems (feeders) on the machine. */
@@ -23,6 +25,8 @@ export interface QuoteMachine {
   efficiency: number;
   /** Machine cost per minute of knitting. */
   minuteRate: number;
+  /** Whose rate `minuteRate` is, in words (the studio's, a mill's, entered for the style). */
+  minuteRateFrom?: string;
 }
 
 export interface QuoteTrim {
@@ -81,13 +85,28 @@ export interface SizeQuote {
   marginShare: number | null;
   orderRevenue: number | null;
   orderMargin: number | null;
+  /** How the figures of the size were computed, with the numbers used. */
+  how: {
+    /** Cost per garment: the sum of its line groups. */
+    perGarment: string;
+    /** Target − cost, and its share of the target; null without a target price. */
+    margin: string | null;
+    /** Order cost of the size: per garment × garments. */
+    orderCost: string;
+    /** Order margin of the size: margin per garment × garments; null without a target price. */
+    orderMargin: string | null;
+  };
 }
 
 export interface Quote {
   currency: string;
   targetPricePerGarment: number | null;
   sizes: SizeQuote[];
-  order: { garments: number; cost: number; revenue: number | null; margin: number | null; marginShare: number | null };
+  order: {
+    garments: number; cost: number; revenue: number | null; margin: number | null; marginShare: number | null;
+    /** How the order totals were computed: the sizes summed, the revenue at the target price, the margin. */
+    how: { cost: string; revenue: string | null; margin: string | null };
+  };
   /** What is missing for a complete quote, in words. */
   problems: string[];
 }
@@ -95,6 +114,17 @@ export interface Quote {
 const m2 = (n: number) => n.toFixed(2);
 const g1 = (n: number) => n.toFixed(1);
 const pct = (f: number) => `${(f * 100).toFixed(f * 100 % 1 === 0 ? 0 : 1)} %`;
+const groupWords: Record<CostGroup, string> = { yarn: 'yarn', knitting: 'knitting', 'making-up': 'making-up', trims: 'trims' };
+
+/** The speed and systems of the machine in its own words: a circular machine turns, a V-bed carriage passes. */
+function machineWords(machine: QuoteMachine): { speed: string; systems: string } {
+  switch (machine.kind) {
+    case 'circular':
+      return { speed: `${g1(machine.speedPerMinute)} rpm`, systems: `${machine.feeders} feeders` };
+    case 'flat':
+      return { speed: `${g1(machine.speedPerMinute)} carriage passes/min`, systems: `${machine.feeders} knitting system${machine.feeders === 1 ? '' : 's'}` };
+  }
+}
 
 /**
  * Yarn cost of one garment for one yarn: knitted grams × (1 + waste allowance) × price per kg ÷ 1000.
@@ -153,15 +183,16 @@ export function computeQuote(input: QuoteInput): Quote {
       courses: s.courses, rpm: machine.speedPerMinute, feeders: machine.feeders, feedersPerCourse: machine.feedersPerCourse, efficiency: machine.efficiency,
     });
     const mc = machineCost(time.minutes, machine.minuteRate);
+    const words = machineWords(machine);
     lines.push({
       key: 'knitting',
       group: 'knitting',
       label: 'Knitting (machine time)',
       amount: mc,
       how:
-        `${Math.round(s.courses)} courses ÷ (${g1(machine.speedPerMinute)} rpm × ${machine.feeders} feeders ÷ ${machine.feedersPerCourse} per course ` +
+        `${Math.round(s.courses)} courses ÷ (${words.speed} × ${words.systems} ÷ ${machine.feedersPerCourse} per course ` +
         `= ${g1(time.coursesPerMinute)} courses/min) ÷ ${pct(machine.efficiency)} efficiency = ${time.minutes.toFixed(2)} min × ` +
-        `${m2(machine.minuteRate)} ${currency}/min = ${m2(mc)} ${currency}`,
+        `${m2(machine.minuteRate)} ${currency}/min${machine.minuteRateFrom ? ` (${machine.minuteRateFrom})` : ''} = ${m2(mc)} ${currency}`,
     });
     for (const k of makingUpKeys) {
       const v = input.makingUp[k];
@@ -179,6 +210,19 @@ export function computeQuote(input: QuoteInput): Quote {
     const perGarment = lines.reduce((a, l) => a + l.amount, 0);
     const target = input.targetPricePerGarment;
     const margin = target === null ? null : marginTo(target, perGarment);
+    const groups = (Object.keys(groupWords) as CostGroup[])
+      .map((g) => ({ g, sum: lines.filter((l) => l.group === g).reduce((a, l) => a + l.amount, 0), any: lines.some((l) => l.group === g) }))
+      .filter((x) => x.any);
+    const each = `${s.garments} garment${s.garments === 1 ? '' : 's'}`;
+    const how: SizeQuote['how'] = {
+      perGarment: `${groups.map((x) => `${groupWords[x.g]} ${m2(x.sum)}`).join(' + ')} = ${m2(perGarment)} ${currency}`,
+      margin: target === null || margin === null
+        ? null
+        : `target ${m2(target)} − cost ${m2(perGarment)} = ${m2(margin.margin)} ${currency}` +
+          (margin.share === null ? ' (no share of a target of 0)' : `, ${(margin.share * 100).toFixed(1)} % of the target`),
+      orderCost: `${m2(perGarment)} ${currency} per garment × ${each} = ${m2(perGarment * s.garments)} ${currency}`,
+      orderMargin: margin === null ? null : `${m2(margin.margin)} ${currency} per garment × ${each} = ${m2(margin.margin * s.garments)} ${currency}`,
+    };
     return {
       size: s.size,
       garments: s.garments,
@@ -191,6 +235,7 @@ export function computeQuote(input: QuoteInput): Quote {
       marginShare: margin?.share ?? null,
       orderRevenue: target === null ? null : target * s.garments,
       orderMargin: margin ? margin.margin * s.garments : null,
+      how,
     };
   });
   if (unpriced.size) problems.push(`No price per kg in the library for ${[...unpriced].join(', ')}: counted as 0.`);
@@ -200,11 +245,20 @@ export function computeQuote(input: QuoteInput): Quote {
   const cost = sizes.reduce((a, s) => a + s.orderCost, 0);
   const revenue = input.targetPricePerGarment === null ? null : input.targetPricePerGarment * garments;
   const margin = revenue === null ? null : revenue - cost;
+  const marginShare = revenue && margin !== null ? margin / revenue : null;
+  const sizeCosts = sizes.length ? sizes.map((s) => `${s.size} ${m2(s.orderCost)}`).join(' + ') : 'no sizes';
+  const orderHow: Quote['order']['how'] = {
+    cost: `${sizeCosts} = ${m2(cost)} ${currency} for ${garments} garments`,
+    revenue: revenue === null ? null : `${m2(input.targetPricePerGarment ?? 0)} ${currency} target × ${garments} garments = ${m2(revenue)} ${currency}`,
+    margin: revenue === null || margin === null
+      ? null
+      : `${m2(revenue)} at the target − ${m2(cost)} cost = ${m2(margin)} ${currency}` + (marginShare === null ? '' : `, ${(marginShare * 100).toFixed(1)} % of the target`),
+  };
   return {
     currency,
     targetPricePerGarment: input.targetPricePerGarment,
     sizes,
-    order: { garments, cost, revenue, margin, marginShare: revenue && margin !== null ? margin / revenue : null },
+    order: { garments, cost, revenue, margin, marginShare, how: orderHow },
     problems,
   };
 }

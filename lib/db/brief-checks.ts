@@ -23,20 +23,21 @@ export function briefTargets(a: BriefAnswers): BriefTargets {
 }
 
 /**
- * The "Brief vs plan" checks of a style. Read with the studio's view of the plan (every colourway
- * target, not only the approved ones a client sees), after checking the user may read the brief;
- * the checks carry no prices.
+ * The "Brief vs plan" checks of a style, after checking the user may read the brief; the checks
+ * carry no prices. Yarns, fibres and fit are read with the studio's view of the plan; the colourways
+ * with the user's own, so a client reviewer's tone counts hold only the colours the colour section
+ * shows them (targets with an approved lab dip).
  */
 export async function briefChecks(user: SessionUser, styleId: string, q: Knex = db()): Promise<{ checks: BriefCheck[]; saved: boolean }> {
   if (!can(user.role, 'brief:read')) throw forbidden();
   if (!(await findStyle(user, styleId, q))) throw notFound('Style not found.');
   const studioView: SessionUser = isOutsideRole(user.role) ? { ...user, role: 'colour-lead', organisationId: null, organisationName: null } : user;
-  const answers = await briefAnswersForStudio(user.studioId, styleId, q);
+  const answers = (await briefAnswersForStudio(user.studioId, styleId, q))?.answers ?? null;
   const plan = await loadStylePlan(studioView, styleId, 0.05, q);
   const { summary } = plan;
   const [sheet, colour] = await Promise.all([
     loadFitSheet(studioView, styleId, q).catch(() => null),
-    listColourways(studioView, styleId, q).catch(() => null),
+    listColourways(user, styleId, q).catch(() => null),
   ]);
   const kept = summary.consumption?.yarns ?? {};
   const figures: PlanFigures = {

@@ -7,7 +7,7 @@ import { conflict, forbidden, HttpError, notFound } from '@/lib/api/errors';
 import { can, canSeeCosts } from '@/lib/auth/roles';
 import type { InspectedUpload } from '@/lib/files/inspect';
 import type { ObjectStore } from '@/lib/storage/object-store';
-import { briefAnswersSchema, emptyBrief, type BriefAnswers, type BriefSave, type ReferenceTag } from '@/lib/validations/brief';
+import { emptyBrief, readBriefAnswers, type BriefAnswers, type BriefSave, type ReferenceTag, type StoredBriefAnswers } from '@/lib/validations/brief';
 
 export interface Brief {
   styleId: string;
@@ -58,21 +58,20 @@ export async function loadBrief(user: SessionUser, styleId: string, q: Db = db()
     .where({ 'b.style_id': styleId, 'b.studio_id': user.studioId })
     .first('b.style_id', 'b.answers', 'b.version', 'b.updated_at', 'u.name as updated_by_name')) as BriefRow | undefined;
   if (!row) return { styleId, version: 0, ...forViewer(user, emptyBrief), saved: false, updatedAt: null, updatedBy: null };
-  // Parse what is stored, so answers saved before a field existed get its default.
-  const parsed = briefAnswersSchema.safeParse(row.answers);
-  const answers = parsed.success ? parsed.data : { ...emptyBrief, ...(row.answers as Partial<BriefAnswers>) };
+  const { answers } = readBriefAnswers(row.answers);
   return { styleId, version: row.version, ...forViewer(user, answers), saved: true, updatedAt: row.updated_at.toISOString(), updatedBy: row.updated_by_name };
 }
 
-/** The brief's raw answers for the studio's own computations (prices included); staff callers only. */
-export async function briefAnswersForStudio(studioId: string, styleId: string, q: Db = db()): Promise<BriefAnswers | null> {
+/**
+ * The brief's answers for the studio's own computations (prices included), read as `loadBrief` reads
+ * them, with the fields that had to be reset named; null while no brief is saved. Staff callers only.
+ */
+export async function briefAnswersForStudio(studioId: string, styleId: string, q: Db = db()): Promise<StoredBriefAnswers | null> {
   const row = (await q('briefs').where({ style_id: styleId, studio_id: studioId }).first('answers')) as { answers: unknown } | undefined;
-  if (!row) return null;
-  const parsed = briefAnswersSchema.safeParse(row.answers);
-  return parsed.success ? parsed.data : null;
+  return row ? readBriefAnswers(row.answers) : null;
 }
 
-function changedFields(before: BriefAnswers, after: BriefAnswers): string[] {
+function changedFields(before: BriefAnswers, after: BriefAnswers): (keyof BriefAnswers)[] {
   return (Object.keys(after) as (keyof BriefAnswers)[]).filter((k) => JSON.stringify(before[k]) !== JSON.stringify(after[k]));
 }
 
@@ -91,7 +90,7 @@ export async function saveBrief(user: SessionUser, styleId: string, input: Brief
         fieldErrors: Object.fromEntries(unknownSizes.map((s) => [`answers.orderBySize.${s}`, [`${s} is not one of the style sizes (${style.sizes.labels.join(', ')})`]])),
       });
     }
-    const current = (await trx('briefs').where({ style_id: styleId }).forUpdate().first('version', 'answers')) as { version: number; answers: BriefAnswers } | undefined;
+    const current = (await trx('briefs').where({ style_id: styleId }).forUpdate().first('version', 'answers')) as { version: number; answers: unknown } | undefined;
     const stale = () => conflict('Someone saved this brief after you opened it. Your answers are still here; reload to see theirs.', { currentVersion: current?.version ?? 0 });
     if (!current) {
       if (input.version !== 0) throw stale();
@@ -106,12 +105,66 @@ export async function saveBrief(user: SessionUser, styleId: string, input: Brief
         .update({ answers: JSON.stringify(input.answers), version: trx.raw('version + 1'), updated_by: user.id, updated_at: trx.fn.now() });
       if (n === 0) throw stale();
     }
-    const fields = changedFields(current ? { ...emptyBrief, ...current.answers } : emptyBrief, input.answers);
+    await trx('brief_versions').insert({
+      style_id: styleId, studio_id: user.studioId, version: current ? input.version + 1 : 1, answers: JSON.stringify(input.answers), saved_by: user.id,
+    });
+    const fields = changedFields(current ? readBriefAnswers(current.answers).answers : emptyBrief, input.answers);
     await trx('audit_log').insert({
       studio_id: user.studioId, style_id: styleId, user_id: user.id, action: 'brief.save', details: JSON.stringify({ fields }),
     });
   });
   return loadBrief(user, styleId, q);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Earlier versions
+
+export interface BriefFieldChange {
+  field: keyof BriefAnswers;
+  before: unknown;
+  after: unknown;
+}
+
+export interface BriefVersion {
+  version: number;
+  savedAt: string;
+  savedBy: string | null;
+  /** The full answers as saved, prices included. */
+  answers: BriefAnswers;
+  /** What differs from the version before it (from the empty brief for the first one). */
+  changes: BriefFieldChange[];
+  /** The version before it was not kept (the list holds the latest ones only, or the brief predates its history). */
+  earlierUnknown: boolean;
+}
+
+const VERSIONS_LISTED = 50;
+
+interface VersionRow { version: number; answers: unknown; saved_at: Date; saved_by_name: string | null }
+
+/**
+ * The brief's saved versions, newest first, each with what changed from the one before. Studio staff
+ * only (admin, designer, colour lead): the answers hold the target price, so clients and mills get 403.
+ */
+export async function listBriefVersions(user: SessionUser, styleId: string, q: Db = db()): Promise<BriefVersion[]> {
+  if (!canSeeCosts(user.role)) throw forbidden();
+  await briefStyle(user, styleId, q);
+  const rows = (await q('brief_versions as v')
+    .leftJoin('users as u', 'u.id', 'v.saved_by')
+    .where({ 'v.style_id': styleId, 'v.studio_id': user.studioId })
+    .orderBy('v.version', 'desc')
+    .limit(VERSIONS_LISTED + 1)
+    .select('v.version', 'v.answers', 'v.saved_at', 'u.name as saved_by_name')) as VersionRow[];
+  const read = rows.map((r) => ({ ...r, answers: readBriefAnswers(r.answers).answers }));
+  return read.slice(0, VERSIONS_LISTED).map((r, i) => {
+    const previous = read[i + 1];
+    const earlierUnknown = previous ? previous.version !== r.version - 1 : r.version !== 1;
+    // The oldest kept version of a brief saved before its history was kept has nothing to compare with.
+    const before = previous?.answers ?? (earlierUnknown ? r.answers : emptyBrief);
+    return {
+      version: r.version, savedAt: r.saved_at.toISOString(), savedBy: r.saved_by_name, answers: r.answers, earlierUnknown,
+      changes: changedFields(before, r.answers).map((field) => ({ field, before: before[field], after: r.answers[field] })),
+    };
+  });
 }
 
 // ---------------------------------------------------------------------------------------------

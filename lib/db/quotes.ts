@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import { db, type Db } from './knex';
 import type { SessionUser } from './users';
-import { conflict, forbidden, notFound } from '@/lib/api/errors';
+import { conflict, forbidden, HttpError, notFound } from '@/lib/api/errors';
 import { can, canSeeCosts } from '@/lib/auth/roles';
 import { findStyle, type Style } from './styles';
 import { listTrims } from './trims';
@@ -9,12 +9,22 @@ import { briefAnswersForStudio } from './briefs';
 import { coursesPerGarment, loadStylePlan, sizeScales } from './plan-figures';
 import { computeQuote, exampleValueNote, resolveRates, trimCostKinds, type CostRates, type Quote, type QuoteMachine, type TrimCostKind } from '@/lib/cost';
 import { quoteInputsSchema, type CostRatesInput, type QuoteInputs } from '@/lib/validations/quote';
+import { briefFieldLabels } from '@/lib/validations/brief';
+
+/** One of the studio's mills with the machine-minute rate it charges (null while none is set). */
+export interface MillRate {
+  id: string;
+  name: string;
+  minuteRate: number | null;
+}
 
 export interface StudioCostRates {
   rates: CostRates;
   /** Keys still at their example value (dotted for making-up and trims). */
   defaults: string[];
   note: string;
+  /** The studio's mills and their machine-minute rates (organisations.settings.costing). */
+  mills: MillRate[];
 }
 
 export interface StyleQuote {
@@ -42,19 +52,46 @@ export async function studioCostRates(user: SessionUser, q: Db = db()): Promise<
   assertCosts(user);
   const row = (await q('studios').where({ id: user.studioId }).first('settings')) as { settings: { costing?: Parameters<typeof resolveRates>[0] } } | undefined;
   const { rates, defaults } = resolveRates(row?.settings?.costing ?? null);
-  return { rates, defaults, note: exampleValueNote };
+  const mills = (await q('organisations').where({ studio_id: user.studioId, kind: 'mill' }).orderBy('name')
+    .select('id', 'name', q.raw("settings #> '{costing,machineMinuteRate}' as minute_rate"))) as { id: string; name: string; minute_rate: unknown }[];
+  return {
+    rates, defaults, note: exampleValueNote,
+    mills: mills.map((m) => ({ id: m.id, name: m.name, minuteRate: typeof m.minute_rate === 'number' ? m.minute_rate : null })),
+  };
 }
 
-/** Writes studios.settings.costing (null values fall back to the example defaults). */
-export async function setStudioCostRates(user: SessionUser, input: CostRatesInput, q: Knex = db()): Promise<StudioCostRates> {
+/** 400 unless every id is one of the studio's mill organisations. */
+async function assertStudioMills(studioId: string, ids: readonly string[], field: (id: string) => string, q: Db): Promise<void> {
+  if (ids.length === 0) return;
+  const found = new Set((await q('organisations').where({ studio_id: studioId, kind: 'mill' }).whereIn('id', ids).pluck('id')) as string[]);
+  const unknown = ids.filter((id) => !found.has(id));
+  if (unknown.length) {
+    throw new HttpError(400, 'Some fields need attention.', { fieldErrors: Object.fromEntries(unknown.map((id) => [field(id), ['Not one of the studio mills']])) });
+  }
+}
+
+/**
+ * Writes studios.settings.costing (null values fall back to the example defaults) and the given
+ * mills' machine-minute rates (organisations.settings.costing; null clears one).
+ */
+export async function setStudioCostRates(user: SessionUser, input: CostRatesInput, q: Knex = db(), millRates: Readonly<Record<string, number | null>> = {}): Promise<StudioCostRates> {
   if (!can(user.role, 'quote:edit')) throw forbidden();
   const clean = (o: Record<string, unknown>): Record<string, unknown> =>
     Object.fromEntries(Object.entries(o).filter(([, v]) => v !== null).map(([k, v]) => [k, v && typeof v === 'object' ? clean(v as Record<string, unknown>) : v]));
   await q.transaction(async (trx) => {
+    await assertStudioMills(user.studioId, Object.keys(millRates), (id) => `mills.${id}`, trx);
     await trx('studios').where({ id: user.studioId }).update({
       settings: trx.raw("jsonb_set(coalesce(settings, '{}'::jsonb), '{costing}', ?::jsonb, true)", [JSON.stringify(clean(input))]),
     });
-    await trx('audit_log').insert({ studio_id: user.studioId, user_id: user.id, action: 'studio.costing', details: JSON.stringify({ fields: Object.keys(clean(input)) }) });
+    for (const [id, rate] of Object.entries(millRates)) {
+      await trx('organisations').where({ id, studio_id: user.studioId }).update({
+        settings: rate === null
+          ? trx.raw("coalesce(settings, '{}'::jsonb) #- '{costing,machineMinuteRate}'")
+          : trx.raw("jsonb_set(jsonb_set(coalesce(settings, '{}'::jsonb), '{costing}', coalesce(settings -> 'costing', '{}'::jsonb), true), '{costing,machineMinuteRate}', ?::jsonb, true)", [JSON.stringify(rate)]),
+      });
+    }
+    const fields = [...Object.keys(clean(input)), ...(Object.keys(millRates).length ? ['millRates'] : [])];
+    await trx('audit_log').insert({ studio_id: user.studioId, user_id: user.id, action: 'studio.costing', details: JSON.stringify({ fields }) });
   });
   return studioCostRates(user, q);
 }
@@ -68,16 +105,33 @@ async function quoteRow(styleId: string, q: Db): Promise<{ inputs: QuoteInputs; 
   return { inputs: parsed.success ? parsed.data : quoteInputsSchema.parse({}), version: row.version, updatedAt: row.updated_at.toISOString() };
 }
 
-function machineFor(style: Style, inputs: QuoteInputs, rates: CostRates): QuoteMachine & { kind: 'circular' | 'flat' } {
+/** The machine-minute rate of the quote and whose it is: entered for the style, else the chosen mill's, else the studio's. */
+function minuteRateFor(inputs: QuoteInputs, studio: StudioCostRates): { minuteRate: number; minuteRateFrom: string; problem: string | null } {
+  if (inputs.minuteRate !== null) return { minuteRate: inputs.minuteRate, minuteRateFrom: 'rate entered for this style', problem: null };
+  const studioRate = {
+    minuteRate: studio.rates.machineMinuteRate,
+    minuteRateFrom: studio.defaults.includes('machineMinuteRate') ? `studio rate, ${studio.note}` : 'studio rate',
+  };
+  if (inputs.millId === null) return { ...studioRate, problem: null };
+  const mill = studio.mills.find((m) => m.id === inputs.millId);
+  if (!mill) return { ...studioRate, problem: 'The mill chosen for the machine-minute rate is no longer one of the studio mills: the studio rate is used.' };
+  if (mill.minuteRate === null) return { ...studioRate, problem: `${mill.name} has no machine-minute rate under Studio rates: the studio rate is used.` };
+  return { minuteRate: mill.minuteRate, minuteRateFrom: `rate of ${mill.name}`, problem: null };
+}
+
+function machineFor(style: Style, inputs: QuoteInputs, studio: StudioCostRates): QuoteMachine & { kind: 'circular' | 'flat' } {
+  const { rates } = studio;
   const circular = style.machine.kind === 'circular';
   const feeders = style.machine.kind === 'circular' ? style.machine.feeders : rates.flatSystems;
+  const { minuteRate, minuteRateFrom } = minuteRateFor(inputs, studio);
   return {
     kind: style.machine.kind,
     speedPerMinute: inputs.speedPerMinute ?? (circular ? rates.circularRpm : rates.flatPassesPerMinute),
     feeders,
     feedersPerCourse: Math.min(inputs.feedersPerCourse, feeders),
     efficiency: inputs.efficiency ?? rates.efficiency,
-    minuteRate: inputs.minuteRate ?? rates.machineMinuteRate,
+    minuteRate,
+    minuteRateFrom,
   };
 }
 
@@ -89,13 +143,14 @@ export async function loadQuote(user: SessionUser, styleId: string, q: Knex = db
   assertCosts(user);
   const style = await findStyle(user, styleId, q);
   if (!style) throw notFound('Style not found.');
-  const [studio, stored, answers, trims] = await Promise.all([
+  const [studio, stored, brief, trims] = await Promise.all([
     studioCostRates(user, q), quoteRow(styleId, q), briefAnswersForStudio(user.studioId, styleId, q), listTrims(user, styleId, q),
   ]);
   const { rates } = studio;
+  const answers = brief?.answers ?? null;
   const plan = await loadStylePlan(user, styleId, rates.wasteAllowance, q);
   const { scales, fromSpec } = await sizeScales(user, style, q);
-  const machine = machineFor(style, stored.inputs, rates);
+  const machine = machineFor(style, stored.inputs, studio);
   const baseCourses = coursesPerGarment(style, plan.panels);
   const knitted = Object.fromEntries(Object.entries(plan.summary.consumption?.yarns ?? {}).map(([id, y]) => [id, y.knittedGrams]));
   const basis = [
@@ -124,6 +179,11 @@ export async function loadQuote(user: SessionUser, styleId: string, q: Knex = db
       garments: answers?.orderBySize[s.size] ?? 0,
     })),
   });
+  const rateProblem = minuteRateFor(stored.inputs, studio).problem;
+  if (rateProblem) quote.problems.push(rateProblem);
+  if (brief?.repaired.length) {
+    quote.problems.push(`The saved brief had answers that no longer pass its checks (${brief.repaired.map((f) => briefFieldLabels[f].toLowerCase()).join(', ')}): they are left empty here. Open the brief and save it again.`);
+  }
   return {
     styleId, styleCode: style.code, styleName: style.name, version: stored.version, inputs: stored.inputs, studio, machine, quote, basis, updatedAt: stored.updatedAt,
   };
@@ -133,8 +193,9 @@ export async function loadQuote(user: SessionUser, styleId: string, q: Knex = db
 export async function saveQuoteInputs(user: SessionUser, styleId: string, input: { version: number; inputs: QuoteInputs }, q: Knex = db()): Promise<StyleQuote> {
   if (!can(user.role, 'quote:edit')) throw forbidden();
   if (!(await findStyle(user, styleId, q))) throw notFound('Style not found.');
+  await assertStudioMills(user.studioId, input.inputs.millId ? [input.inputs.millId] : [], () => 'inputs.millId', q);
   await q.transaction(async (trx) => {
-    const current = (await trx('quotes').where({ style_id: styleId }).forUpdate().first('version')) as { version: number } | undefined;
+    const current = (await trx('quotes').where({ style_id: styleId }).forUpdate().first('version', 'inputs')) as { version: number; inputs: unknown } | undefined;
     const stale = () => conflict('Someone saved this quote after you opened it. Reload to see their entries.', { currentVersion: current?.version ?? 0 });
     if (!current) {
       if (input.version !== 0) throw stale();
@@ -145,8 +206,11 @@ export async function saveQuoteInputs(user: SessionUser, styleId: string, input:
         .update({ inputs: JSON.stringify(input.inputs), version: trx.raw('version + 1'), updated_by: user.id, updated_at: trx.fn.now() });
       if (n === 0) throw stale();
     }
-    // Field names only: the history is read by client reviewers too.
-    await trx('audit_log').insert({ studio_id: user.studioId, style_id: styleId, user_id: user.id, action: 'quote.save', details: '{}' });
+    // Entry names only, never their values: the history is read by client reviewers too.
+    const before = quoteInputsSchema.safeParse(current?.inputs ?? {});
+    const was: Record<string, unknown> = before.success ? before.data : {};
+    const fields = Object.keys(input.inputs).filter((k) => JSON.stringify(was[k]) !== JSON.stringify((input.inputs as Record<string, unknown>)[k]));
+    await trx('audit_log').insert({ studio_id: user.studioId, style_id: styleId, user_id: user.id, action: 'quote.save', details: JSON.stringify({ fields }) });
   });
   return loadQuote(user, styleId, q);
 }

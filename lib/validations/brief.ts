@@ -68,6 +68,44 @@ export type BriefAnswers = z.infer<typeof briefAnswersSchema>;
 
 export const emptyBrief: BriefAnswers = briefAnswersSchema.parse({});
 
+/** Stored answers read through the schema, with the fields that did not pass it put back to their default. */
+export interface StoredBriefAnswers {
+  answers: BriefAnswers;
+  /** The fields that failed the schema and were reset to their default (empty when the answers passed). */
+  repaired: (keyof BriefAnswers)[];
+}
+
+/**
+ * Parses stored answers, so answers saved before a field existed get its default. Answers that fail
+ * the schema keep every field that passes it alone; the rest take their default and are named.
+ */
+export function readBriefAnswers(stored: unknown): StoredBriefAnswers {
+  const parsed = briefAnswersSchema.safeParse(stored);
+  if (parsed.success) return { answers: parsed.data, repaired: [] };
+  const raw = stored && typeof stored === 'object' && !Array.isArray(stored) ? (stored as Record<string, unknown>) : {};
+  const answers: Record<string, unknown> = { ...emptyBrief };
+  const repaired: (keyof BriefAnswers)[] = [];
+  for (const key of Object.keys(emptyBrief) as (keyof BriefAnswers)[]) {
+    const one = briefAnswersSchema.shape[key].safeParse(raw[key]);
+    if (one.success) answers[key] = one.data;
+    else repaired.push(key);
+  }
+  const whole = briefAnswersSchema.safeParse(answers);
+  if (whole.success) return { answers: whole.data, repaired };
+  // Only the cross-field check is left (a delivery before the sample): the later date goes.
+  return { answers: { ...(answers as BriefAnswers), deliveryDate: null }, repaired: [...repaired, 'deliveryDate'] };
+}
+
+/** Each answer's name as the questionnaire shows it. */
+export const briefFieldLabels: Record<keyof BriefAnswers, string> = {
+  customers: 'Customers', sport: 'Sport', level: 'Level', climate: 'Climate', season: 'Season', purpose: 'Purpose',
+  compression: 'Compression level', ventilationAreas: 'Ventilation areas', support: 'Support', stretch: 'Stretch',
+  weightUnit: 'Weight unit', weightTarget: 'Weight target', care: 'Care expectations', colourIntent: 'Colour intent',
+  tones: 'Number of tones', targetPrice: 'Target price per garment', orderBySize: 'Order size per size',
+  sampleDate: 'Sample date', deliveryDate: 'Delivery date', fibresToAvoid: 'Fibres to avoid', recycledPct: 'Recycled content, at least %',
+  markets: 'Markets',
+};
+
 export const briefSaveSchema = z
   .object({
     /** The brief's version the edit started from; 0 when no brief was saved yet. */

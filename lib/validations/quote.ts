@@ -20,7 +20,13 @@ export const costRatesSchema = z
   .strict();
 export type CostRatesInput = z.infer<typeof costRatesSchema>;
 
-export const costRatesPutSchema = z.object({ rates: costRatesSchema }).strict();
+export const costRatesPutSchema = z
+  .object({
+    rates: costRatesSchema,
+    /** Machine-minute rates of the studio's mills, by mill organisation id; null clears a mill's rate. Absent mills keep theirs. */
+    mills: z.record(z.uuid({ error: 'A mill id' }), money('Machine-minute rate').nullable()).default({}),
+  })
+  .strict();
 
 /** What the designer enters for one style's quote; null takes the studio rate. */
 export const quoteInputsSchema = z
@@ -29,6 +35,8 @@ export const quoteInputsSchema = z
     feedersPerCourse: z.number({ error: 'Feeders per course must be a number' }).int('Whole feeders only').min(1, 'At least one feeder per course').max(16).default(1),
     efficiency: maybe(z.number({ error: 'Efficiency must be a number' }).gt(0, 'Efficiency must be above 0').max(1, 'Efficiency is at most 1 (100 %)')),
     minuteRate: maybe(money('Machine-minute rate')),
+    /** The mill (one of the studio's mill organisations) whose machine-minute rate is used when no rate is entered here. */
+    millId: maybe(z.uuid({ error: 'A mill of the studio' })),
     makingUp: z.object(Object.fromEntries(makingUpKeys.map((k) => [k, maybe(money('Cost'))])) as Record<(typeof makingUpKeys)[number], z.ZodDefault<z.ZodNullable<z.ZodNumber>>>).strict().default({ cutting: null, linking: null, dyeing: null, heatSetting: null }),
     includeTrims: z.boolean().default(true),
   })

@@ -595,6 +595,8 @@ export const matrix: Record<string, Entry> = {
     expect: editors(200),
     run: async (c) => c.put(`/api/styles/${(await freshStyle()).id}/brief`, { version: 0, answers: { sport: 'Trail running' } }),
   },
+  // Earlier answers hold the target price: studio staff only, never the client or the mill.
+  'GET /api/styles/[id]/brief/versions': { expect: staffOnly(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/brief/versions`) },
   'GET /api/styles/[id]/brief/checks': { expect: briefReaders(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/brief/checks`) },
   'GET /api/styles/[id]/brief/references': { expect: briefReaders(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/brief/references`) },
   'POST /api/styles/[id]/brief/references': {

@@ -3,8 +3,9 @@
  * clear 400s, 409 on stale, history entries, uploads checked by content, and roles — the mill and
  * the client never see a cost, a price or a margin anywhere they can reach.
  */
-import { beforeAll, describe, expect, it } from 'vitest';
-import { as, baseUrl, styleByCode, type Client } from './helpers';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import knexFactory, { type Knex } from 'knex';
+import { as, baseUrl, newStyleBody, styleByCode, type Client } from './helpers';
 
 const tinyPng = Buffer.from(
   'iVBORw0KGgoAAAANSUhEUgAAAAIAAAACCAIAAAD91JpzAAAAFklEQVR4nGP8z8DAwMDAxMDAwMDAAAANHQEDasKb6QAAAABJRU5ErkJggg==',
@@ -21,12 +22,15 @@ async function upload(c: Client, styleId: string, bytes: Uint8Array, fields: Rec
 }
 
 describe('brief and quote routes', () => {
+  afterAll(async () => { await knex?.destroy(); });
   let designer: Client;
   let client: Client;
   let mill: Client;
   let styleId: string;
+  let knex: Knex;
 
   beforeAll(async () => {
+    knex = knexFactory({ client: 'pg', connection: inject('databaseUrl'), pool: { min: 0, max: 2 } });
     designer = await as('designer');
     client = await as('client');
     mill = await as('mill');
@@ -50,6 +54,34 @@ describe('brief and quote routes', () => {
     const entry = JSON.stringify(history.json).match(/brief\.save[^}]*}/)?.[0] ?? '';
     expect(entry).toContain('targetPrice');
     expect(JSON.stringify(history.json)).not.toContain('47.35');
+  });
+
+  it('keeps every saved version of the brief for staff, with what changed; never for the client or the mill', async () => {
+    const before = (await designer.get(`/api/styles/${styleId}/brief`)).json.brief;
+    const saved = await designer.put(`/api/styles/${styleId}/brief`, { version: before.version, answers: { ...before.answers, sport: 'Fell running', tones: 3 } });
+    expect(saved.status).toBe(200);
+    const res = await designer.get(`/api/styles/${styleId}/brief/versions`);
+    expect(res.status).toBe(200);
+    const versions = res.json.versions as { version: number; savedBy: string | null; answers: { sport: string; targetPrice: number | null }; changes: { field: string; before: unknown; after: unknown }[] }[];
+    expect(versions.map((v) => v.version)).toEqual([...versions.map((v) => v.version)].sort((a, b) => b - a));
+    const [latest, previous] = versions;
+    expect(latest!.version).toBe(before.version + 1);
+    expect(latest!.answers.sport).toBe('Fell running');
+    expect(latest!.savedBy).toBeTruthy();
+    expect(latest!.changes.map((c) => c.field).sort()).toEqual(['sport', 'tones']);
+    expect(latest!.changes.find((c) => c.field === 'sport')).toEqual({ field: 'sport', before: 'Trail running', after: 'Fell running' });
+    // The version before holds the full answers as they were, price included.
+    expect(previous!.version).toBe(before.version);
+    expect(previous!.answers.sport).toBe('Trail running');
+    expect(previous!.answers.targetPrice).toBe(47.35);
+    expect((await designer.get(`/api/styles/${styleId}/history`)).text).toContain('brief.save');
+    const colourLead = await as('colour-lead');
+    expect((await colourLead.get(`/api/styles/${styleId}/brief/versions`)).status).toBe(200);
+    expect((await client.get(`/api/styles/${styleId}/brief/versions`)).status).toBe(403);
+    expect((await mill.get(`/api/styles/${styleId}/brief/versions`)).status).toBe(403);
+    expect((await designer.get('/api/styles/not-a-uuid/brief/versions')).status).toBe(400);
+    // Put the sport back for the tests below.
+    await designer.put(`/api/styles/${styleId}/brief`, { version: latest!.version, answers: { ...latest!.answers, sport: 'Trail running', tones: 2 } });
   });
 
   it('answers bad input with 400 and field errors, never 500', async () => {
@@ -122,6 +154,18 @@ describe('brief and quote routes', () => {
     expect((await mill.get(`/api/styles/${styleId}/brief/checks`)).status).toBe(403);
   });
 
+  it('counts tones for the client from the colours the colour section shows them (approved lab dips only)', async () => {
+    type Cw = { name: string; targets: unknown[] };
+    const planOf = (cws: Cw[]) => cws.map((c) => `${c.name}: ${c.targets.length}`).join(', ');
+    const tonesFor = async (c: Client) => ((await c.get(`/api/styles/${styleId}/brief/checks`)).json.checks as { id: string; plan: string }[]).find((x) => x.id === 'tones');
+    const staffColours = (await designer.get(`/api/styles/${styleId}/colourways`)).json.colourways as Cw[];
+    const clientColours = (await client.get(`/api/styles/${styleId}/colourways`)).json.colourways as Cw[];
+    // The demo style has targets without an approved dip, so the two views differ and the check can fail.
+    expect(clientColours.reduce((a, c) => a + c.targets.length, 0)).toBeLessThan(staffColours.reduce((a, c) => a + c.targets.length, 0));
+    expect((await tonesFor(designer))?.plan).toBe(planOf(staffColours));
+    expect((await tonesFor(client))?.plan).toBe(clientColours.length ? planOf(clientColours) : '—');
+  });
+
   it('quotes per size with how each figure was computed, saves entries with versions, downloads PDF and CSV', async () => {
     const res = await designer.get(`/api/styles/${styleId}/quote`);
     expect(res.status).toBe(200);
@@ -146,6 +190,67 @@ describe('brief and quote routes', () => {
     expect(csv.text).toContain('HF27-101,M,Total cost');
   });
 
+  it('reads stored answers that fail the schema the same way for the brief and the quote, and says so in the quote', async () => {
+    const created = await designer.post('/api/styles', newStyleBody());
+    expect(created.status).toBe(201);
+    const id = created.json.style.id as string;
+    const saved = await designer.put(`/api/styles/${id}/brief`, { version: 0, answers: { sport: 'Cycling', targetPrice: 31.2, orderBySize: { S: 10, M: 20 }, tones: 2 } });
+    expect(saved.status).toBe(200);
+    // An answer stored under an older rule (more tones than the form takes now).
+    await knex('briefs').where({ style_id: id }).update({ answers: knex.raw(`answers || '{"tones": 40}'::jsonb`) });
+    const brief = (await designer.get(`/api/styles/${id}/brief`)).json.brief;
+    expect(brief.answers.targetPrice).toBe(31.2);
+    expect(brief.answers.tones).toBeNull();
+    const quote = (await designer.get(`/api/styles/${id}/quote`)).json.quote;
+    expect(quote.quote.targetPricePerGarment).toBe(31.2);
+    expect(quote.quote.sizes.find((s: { size: string }) => s.size === 'M').garments).toBe(20);
+    expect(quote.quote.problems.join(' ')).toMatch(/saved brief had answers .*number of tones/);
+    const checks = (await designer.get(`/api/styles/${id}/brief/checks`)).json;
+    expect(checks.saved).toBe(true);
+  });
+
+  it('uses the machine-minute rate of the mill the quote names, and says so in the knitting line', async () => {
+    const admin = await as('admin');
+    const orgs = (await admin.get('/api/organisations')).json.organisations as { id: string; name: string; kind: string }[];
+    const mill = orgs.find((o) => o.kind === 'mill')!;
+    const other = orgs.filter((o) => o.kind === 'mill')[1]!;
+    const clientOrg = orgs.find((o) => o.kind === 'client')!;
+    const studio = (await designer.get('/api/settings/costing')).json.costing;
+    // The studio rates as set (a PUT writes them all), so only the mill rates change here.
+    const rates: Record<string, unknown> = { makingUp: {}, trimUnitCost: {} };
+    for (const [k, v] of Object.entries(studio.rates as Record<string, unknown>)) {
+      if (v && typeof v === 'object') {
+        for (const [kk, vv] of Object.entries(v)) if (!studio.defaults.includes(`${k}.${kk}`)) (rates[k] as Record<string, unknown>)[kk] = vv;
+      } else if (!studio.defaults.includes(k)) rates[k] = v;
+    }
+    const set = await designer.put('/api/settings/costing', { rates, mills: { [mill.id]: 0.61, [other.id]: null } });
+    expect(set.status).toBe(200);
+    expect(set.json.costing.mills.find((m: { id: string }) => m.id === mill.id).minuteRate).toBe(0.61);
+    expect((await designer.put('/api/settings/costing', { rates, mills: { [clientOrg.id]: 0.5 } })).status).toBe(400);
+    expect(set.json.costing.defaults).toEqual(studio.defaults);
+    const q = (await designer.get(`/api/styles/${styleId}/quote`)).json.quote;
+    const withMill = await designer.put(`/api/styles/${styleId}/quote`, { version: q.version, inputs: { ...q.inputs, minuteRate: null, millId: mill.id } });
+    expect(withMill.status).toBe(200);
+    const m = withMill.json.quote.quote.sizes.find((s: { size: string }) => s.size === 'M');
+    const knitting = m.lines.find((l: { key: string }) => l.key === 'knitting');
+    expect(knitting.how).toContain(`0.61 ${withMill.json.quote.quote.currency}/min (rate of ${mill.name})`);
+    expect(knitting.amount).toBeCloseTo(m.knitting.minutes * 0.61, 10);
+    // A mill with no rate: the studio rate, and the quote says why.
+    const v = withMill.json.quote.version;
+    const noRate = await designer.put(`/api/styles/${styleId}/quote`, { version: v, inputs: { ...withMill.json.quote.inputs, millId: other.id } });
+    expect(noRate.json.quote.machine.minuteRate).toBe(studio.rates.machineMinuteRate);
+    expect(noRate.json.quote.quote.problems.join(' ')).toContain(`${other.name} has no machine-minute rate`);
+    // Only the studio mills: a client organisation or an unknown id is a 400, and nothing is saved.
+    for (const bad of [clientOrg.id, '00000000-0000-4000-8000-000000000000', 'not-an-id']) {
+      const res = await designer.put(`/api/styles/${styleId}/quote`, { version: noRate.json.quote.version, inputs: { ...noRate.json.quote.inputs, millId: bad } });
+      expect(res.status, bad).toBe(400);
+      expect(res.json.fieldErrors['inputs.millId'], bad).toBeDefined();
+    }
+    // Back to the studio rate for the tests below.
+    await designer.put(`/api/styles/${styleId}/quote`, { version: noRate.json.quote.version, inputs: { ...noRate.json.quote.inputs, millId: null } });
+    await designer.put('/api/settings/costing', { rates, mills: { [mill.id]: null } });
+  });
+
   it('the mill and the client get 403 on every cost route', async () => {
     for (const c of [client, mill]) {
       expect((await c.get(`/api/styles/${styleId}/quote`)).status).toBe(403);
@@ -161,7 +266,7 @@ describe('brief and quote routes', () => {
     const paths = [
       `/api/styles/${styleId}`, `/api/styles/${styleId}/textures`, `/api/styles/${styleId}/body-map`, `/api/styles/${styleId}/fit`,
       `/api/styles/${styleId}/fit/sheet`, `/api/styles/${styleId}/colourways`, `/api/styles/${styleId}/trims`, `/api/styles/${styleId}/history`,
-      `/api/styles/${styleId}/brief`, `/api/styles/${styleId}/brief/checks`, `/api/styles/${styleId}/brief/references`, '/api/styles',
+      `/api/styles/${styleId}/brief`, `/api/styles/${styleId}/brief/checks`, `/api/styles/${styleId}/brief/references`, `/api/styles/${styleId}/brief/versions`, '/api/styles',
     ];
     // The staff view has prices, so the check below is not vacuous.
     expect((await designer.get(`/api/styles/${styleId}/textures`)).text).toMatch(/"pricePerKg":\d/);
@@ -172,7 +277,8 @@ describe('brief and quote routes', () => {
         expect(res.text, `${c.label} ${p}`).not.toMatch(/"pricePerKg":\d/);
         expect(res.text, `${c.label} ${p}`).not.toMatch(/"targetPrice":\d/);
         expect(res.text, `${c.label} ${p}`).not.toMatch(/"(margin|marginPerGarment|perGarment|orderCost|machineMinuteRate)"/);
-        expect(res.text, `${c.label} ${p}`).not.toContain('47.35');
+        // The price as a JSON number (a timestamp such as 04:04:47.356 holds the same digits).
+        expect(res.text, `${c.label} ${p}`).not.toMatch(/[:,[]47\.35[,}\]]/);
       }
     }
   });

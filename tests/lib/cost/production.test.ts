@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
-  circularProductionKgPerHour, circularProductionKgPerShift, coursesPerMinute, knittingTime,
+  circularProductionKgPerHour, circularProductionKgPerShift, coursesPerMinute, cylinderNeedles, knittingTime,
 } from '@/lib/cost';
 
 describe('coursesPerMinute', () => {
@@ -35,17 +35,36 @@ describe('knittingTime', () => {
 });
 
 describe('circular production', () => {
-  // Worked example (references.md §7(g), production formula kg/h = π·D·E·rpm·F·l·tex·60·η / 10⁹):
-  // 30 in, E18, 38 rpm, 80 feeders, 2 mm loops, 70 tex, 95 % efficiency, an 8 h shift.
+  // Worked example from textiletutorials.com (production formula and examples), as references.md §7(g)
+  // records it: kg/h = π·D·E·rpm·F·l·tex·60·η / 10⁹ with 30 in, E18, 38 rpm, 80 feeders, 2 mm loops,
+  // 70 tex, 95 % efficiency, an 8 h shift → "329.07 kg per shift".
   const machine = { diameterIn: 30, gauge: 18, rpm: 38, feeders: 80, loopMm: 2, tex: 70, efficiency: 0.95 };
 
-  it('gives the worked example\'s "329.07 kg per shift" with π = 3.14, as the example computes it', () => {
+  it('gives the textiletutorials.com worked example\'s "329.07 kg per shift" with π = 3.14, as the example computes it', () => {
     expect(circularProductionKgPerShift({ ...machine, pi: 3.14 }, 480)).toBeCloseTo(329.07, 2);
   });
-  it('gives 329.24 kg per shift with π itself (references.md §7(g), computed)', () => {
+  it('gives 329.24 kg per shift with π itself (references.md §7(g), computed from the textiletutorials.com example)', () => {
     expect(circularProductionKgPerShift(machine, 480)).toBeCloseTo(329.24, 2);
   });
   it('per hour is an eighth of the 8 h shift', () => {
     expect(circularProductionKgPerHour({ ...machine, pi: 3.14 })).toBeCloseTo(329.0712 / 8, 4);
+  });
+  it('takes the needle count directly: the example\'s 3.14 × 30 × 18 = 1695.6 needles give its 329.07 kg (textiletutorials.com)', () => {
+    const { diameterIn: _d, gauge: _g, ...rest } = machine;
+    expect(circularProductionKgPerShift({ ...rest, needles: 1695.6 }, 480)).toBeCloseTo(329.07, 2);
+  });
+  it('prefers the given needles to π × D × E, so a real count changes the figure (common practice, no published source)', () => {
+    // A 30 in E18 cylinder with 1680 needles (a multiple of 24 below π × 30 × 18 = 1696.5):
+    // 1680 × 38 × 80 × 2 × 70 × 0.95 × 480 ÷ 10⁹ = 326.043648 kg per shift.
+    const withCount = circularProductionKgPerShift({ ...machine, needles: 1680 }, 480);
+    expect(withCount).toBeCloseTo(326.0436, 4);
+    expect(withCount).toBeLessThan(circularProductionKgPerShift(machine, 480));
+    expect(cylinderNeedles({ diameterIn: 30, gauge: 18 })).toBeCloseTo(Math.PI * 540, 10);
+  });
+  it('refuses a production with neither the needles nor diameter and gauge, or with no needles', () => {
+    const { diameterIn: _d, gauge: _g, ...rest } = machine;
+    expect(() => circularProductionKgPerHour(rest)).toThrow(RangeError);
+    expect(() => circularProductionKgPerHour({ ...rest, needles: 0 })).toThrow(RangeError);
+    expect(() => circularProductionKgPerHour({ ...rest, diameterIn: 30 })).toThrow(RangeError);
   });
 });

@@ -30,7 +30,7 @@ const input = (over: Partial<QuoteInput> = {}): QuoteInput => ({
     { id: 'el', name: 'EL 44', pricePerKg: 20 },
   ],
   wasteAllowance: 0.05,
-  machine: { speedPerMinute: 60, feeders: 8, feedersPerCourse: 1, efficiency: 0.84, minuteRate: 0.4 },
+  machine: { kind: 'circular', speedPerMinute: 60, feeders: 8, feedersPerCourse: 1, efficiency: 0.84, minuteRate: 0.4 },
   makingUp: { cutting: 0.3, linking: 1.2, dyeing: 0.9, heatSetting: 0.25 },
   trims: [{ name: 'Neck label', kind: 'heat-transfer', unitCost: 0.35 }],
   targetPricePerGarment: 20,
@@ -64,6 +64,44 @@ describe('computeQuote', () => {
     expect(s.lines.find((l) => l.key === 'yarn:pa')!.how).toBe('180.0 g knitted + 5 % waste = 189.0 g × 8.00 EUR/kg ÷ 1000 = 1.51 EUR');
     expect(s.lines.find((l) => l.key === 'knitting')!.how).toContain('2520 courses ÷ (60.0 rpm × 8 feeders ÷ 1 per course = 480.0 courses/min) ÷ 84 % efficiency = 6.25 min');
   });
+  it('says how the size total, the margin and the order totals were computed (common practice, no published source)', () => {
+    const q = computeQuote(input());
+    const s = q.sizes[0]!;
+    // Size S: yarn 1.512 + 0.42 = 1.932, knitting 2.5, making-up 2.65, trims 0.35 → 7.432 per garment;
+    // margin 20 − 7.432 = 12.568 = 62.84 % of 20; × 100 garments: 743.20 and 1256.80.
+    expect(s.how.perGarment).toBe('yarn 1.93 + knitting 2.50 + making-up 2.65 + trims 0.35 = 7.43 EUR');
+    expect(s.how.margin).toBe('target 20.00 − cost 7.43 = 12.57 EUR, 62.8 % of the target');
+    expect(s.how.orderCost).toBe('7.43 EUR per garment × 100 garments = 743.20 EUR');
+    expect(s.how.orderMargin).toBe('12.57 EUR per garment × 100 garments = 1256.80 EUR');
+    // Size M: yarn 1.68 + 0.462, knitting 2640 ÷ 480 ÷ 0.84 min × 0.4 = 2.61905, + 3.00 → 7.76105 × 150 = 1164.16;
+    // the order: 743.20 + 1164.16 = 1907.36 for 250 garments, 5000 at the target, 3092.64 margin (61.9 %).
+    expect(q.order.how.cost).toBe('S 743.20 + M 1164.16 = 1907.36 EUR for 250 garments');
+    expect(q.order.how.revenue).toBe('20.00 EUR target × 250 garments = 5000.00 EUR');
+    expect(q.order.how.margin).toBe('5000.00 at the target − 1907.36 cost = 3092.64 EUR, 61.9 % of the target');
+  });
+  it('says whose machine-minute rate the knitting line used', () => {
+    const q = computeQuote(input({ machine: { ...input().machine, minuteRateFrom: 'rate of Test Mill' } }));
+    expect(q.sizes[0]!.lines.find((l) => l.key === 'knitting')!.how).toMatch(/× 0\.40 EUR\/min \(rate of Test Mill\) = 2\.50 EUR$/);
+    expect(computeQuote(input()).sizes[0]!.lines.find((l) => l.key === 'knitting')!.how).toMatch(/× 0\.40 EUR\/min = 2\.50 EUR$/);
+  });
+  it('has no margin explanation without a target price', () => {
+    const q = computeQuote(input({ targetPricePerGarment: null }));
+    expect(q.sizes[0]!.how.margin).toBeNull();
+    expect(q.sizes[0]!.how.orderMargin).toBeNull();
+    expect(q.order.how.revenue).toBeNull();
+    expect(q.order.how.margin).toBeNull();
+    expect(q.sizes[0]!.how.orderCost).toMatch(/× 100 garments = 743\.20 EUR$/);
+  });
+  it('words the knitting speed by the machine: rpm for a circular machine, carriage passes for a V-bed', () => {
+    const circular = computeQuote(input()).sizes[0]!.lines.find((l) => l.key === 'knitting')!.how;
+    expect(circular).toContain('60.0 rpm × 8 feeders');
+    const flat = computeQuote(input({ machine: { kind: 'flat', speedPerMinute: 24, feeders: 2, feedersPerCourse: 1, efficiency: 0.8, minuteRate: 0.3 } }));
+    const how = flat.sizes[0]!.lines.find((l) => l.key === 'knitting')!.how;
+    expect(how).toContain('2520 courses ÷ (24.0 carriage passes/min × 2 knitting systems ÷ 1 per course = 48.0 courses/min)');
+    expect(how).not.toMatch(/rpm|feeders/);
+    // The figures do not depend on the wording: 2520 ÷ 48 ÷ 0.8 = 65.625 min.
+    expect(flat.sizes[0]!.knitting.minutes).toBeCloseTo(65.625, 10);
+  });
   it('names yarns without a price, and a missing target price', () => {
     const q = computeQuote(input({ yarns: [{ id: 'pa', name: 'PA 78/68', pricePerKg: null }], targetPricePerGarment: null }));
     expect(q.problems.join(' ')).toMatch(/PA 78\/68/);
@@ -75,6 +113,10 @@ describe('computeQuote', () => {
     expect(csv.split('\r\n')[0]).toMatch(/^style,size,line/);
     expect(csv).toContain('HF27-101,S,Total cost,total,7.432,100,743.2,');
     expect(csv).toContain('Order margin');
+    // The totals carry their "how" too.
+    expect(csv).toContain('Total cost,total,7.432,100,743.2,yarn 1.93 + knitting 2.50 + making-up 2.65 + trims 0.35 = 7.43 EUR; order: 7.43 EUR per garment × 100 garments = 743.20 EUR');
+    expect(csv).toContain('Margin,total,12.568,100,1256.8,"target 20.00 − cost 7.43 = 12.57 EUR, 62.8 % of the target; order: 12.57 EUR per garment × 100 garments = 1256.80 EUR"');
+    expect(csv).toContain('Order cost,order,,250,1907.3571,S 743.20 + M 1164.16 = 1907.36 EUR for 250 garments');
   });
 });
 

@@ -12,6 +12,6 @@ export const GET = route(async () => {
 
 export const PUT = route(async (req) => {
   const user = await authorize('quote:edit');
-  const { rates } = await parseBody(req, costRatesPutSchema);
-  return NextResponse.json({ costing: await setStudioCostRates(user, rates) });
+  const { rates, mills } = await parseBody(req, costRatesPutSchema);
+  return NextResponse.json({ costing: await setStudioCostRates(user, rates, undefined, mills) });
 });
