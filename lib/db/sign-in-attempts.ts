@@ -8,33 +8,46 @@ function windowStart(now: Date): Date {
   return new Date(Math.floor(now.getTime() / ms) * ms);
 }
 
-/** Seconds until the caller may try again, or 0 when under both limits. Counted in PostgreSQL. */
-export async function signInBlockedFor(email: string, address: string, now = new Date(), q: Db = db()): Promise<number> {
-  const start = windowStart(now);
-  const rows = (await q('sign_in_attempts')
-    .whereIn('key', [`email:${email}`, `ip:${address}`])
-    .andWhere('window_start', start)
-    .select('key', 'failures')) as { key: string; failures: number }[];
-  const blocked = rows.some((r) =>
-    r.key.startsWith('email:') ? r.failures >= signInLimits.perAccount : r.failures >= signInLimits.perAddress,
-  );
-  if (!blocked) return 0;
-  return Math.max(1, Math.ceil((start.getTime() + signInLimits.windowMinutes * 60_000 - now.getTime()) / 1000));
+function keysFor(email: string, address: string | null): string[] {
+  return address === null ? [`email:${email}`] : [`email:${email}`, `ip:${address}`];
 }
 
-export async function recordSignInFailure(email: string, address: string, now = new Date(), q: Db = db()): Promise<void> {
+/** One password check, counted as a failure before the password is compared. */
+export type SignInAttempt = { email: string; address: string | null; windowStart: Date; waitSeconds: number };
+
+/**
+ * Counts a password check as a failure up front (per account, and per address when the address is
+ * known), in one statement, and then compares the counts with the limits: parallel attempts each get
+ * their own count, so a burst cannot pass the limit. `waitSeconds` is 0 when the check may go ahead,
+ * otherwise the seconds until the window ends. A check that turns out right is taken back with
+ * `signInSucceeded`.
+ */
+export async function reserveSignInAttempt(email: string, address: string | null, now = new Date(), q: Db = db()): Promise<SignInAttempt> {
   const start = windowStart(now);
-  for (const key of [`email:${email}`, `ip:${address}`]) {
-    await q.raw(
-      `insert into sign_in_attempts (key, window_start, failures) values (?, ?, 1)
-       on conflict (key, window_start) do update set failures = sign_in_attempts.failures + 1`,
-      [key, start],
-    );
-  }
+  const keys = keysFor(email, address);
+  const { rows } = (await q.raw(
+    `insert into sign_in_attempts (key, window_start, failures) values ${keys.map(() => '(?, ?, 1)').join(', ')}
+     on conflict (key, window_start) do update set failures = sign_in_attempts.failures + 1
+     returning key, failures`,
+    keys.flatMap((key) => [key, start]),
+  )) as { rows: { key: string; failures: number }[] };
   // Old windows are of no use; keep the table small.
   await q('sign_in_attempts').where('window_start', '<', new Date(start.getTime() - 24 * 3600_000)).del();
+  const over = rows.some((r) =>
+    r.key.startsWith('email:') ? r.failures > signInLimits.perAccount : r.failures > signInLimits.perAddress,
+  );
+  const waitSeconds = over
+    ? Math.max(1, Math.ceil((start.getTime() + signInLimits.windowMinutes * 60_000 - now.getTime()) / 1000))
+    : 0;
+  return { email, address, windowStart: start, waitSeconds };
 }
 
-export async function clearSignInFailures(email: string, q: Db = db()): Promise<void> {
-  await q('sign_in_attempts').where('key', `email:${email}`).del();
+/** The password was right: the account's failures are forgotten and the address's count is taken back. */
+export async function signInSucceeded(attempt: SignInAttempt, q: Db = db()): Promise<void> {
+  await q('sign_in_attempts').where('key', `email:${attempt.email}`).del();
+  if (attempt.address !== null) {
+    await q('sign_in_attempts')
+      .where({ key: `ip:${attempt.address}`, window_start: attempt.windowStart })
+      .update({ failures: q.raw('greatest(failures - 1, 0)') });
+  }
 }

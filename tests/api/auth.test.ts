@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { accounts, anonymous, as, Client, demoPassword } from './helpers';
+import { signInLimits } from '@/lib/db/sign-in-attempts';
 
 describe('sign-in', () => {
   it('signs in, answers who am I, signs out', async () => {
@@ -63,6 +64,46 @@ describe('sign-in', () => {
     // A different address is not blocked.
     const other = await c.request('POST', '/api/auth/sign-in', { email: 'probe-x@elsewhere.example', password: 'x' }, { 'x-forwarded-for': '10.77.0.2' });
     expect(other.status).toBe(401);
+  });
+
+  it('counts the address the proxy added (the last forwarded entry), not what the caller wrote before it', async () => {
+    const c = anonymous();
+    let last = 0;
+    for (let i = 0; i <= signInLimits.perAddress; i++) {
+      const forwarded = `10.66.${i}.1, 10.78.0.1`;
+      last = (await c.request('POST', '/api/auth/sign-in', { email: `spoof${i}@elsewhere.example`, password: 'x' }, { 'x-forwarded-for': forwarded })).status;
+    }
+    expect(last).toBe(429);
+  });
+
+  it('without a known address, failures against other accounts never block an account', async () => {
+    // No X-Forwarded-For header: the address is unknown, so only the per-account counts apply.
+    const c = anonymous();
+    const hammered = `hammered-${Date.now()}@elsewhere.example`;
+    const statuses: number[] = [];
+    for (let i = 0; i <= signInLimits.perAccount + 2; i++) {
+      statuses.push((await c.post('/api/auth/sign-in', { email: hammered, password: 'wrong' })).status);
+    }
+    expect(statuses.at(-1)).toBe(429);
+    for (let i = 0; i <= signInLimits.perAddress; i++) {
+      expect((await c.post('/api/auth/sign-in', { email: `unknown-${i}-${Date.now()}@elsewhere.example`, password: 'x' })).status).toBe(401);
+    }
+    const other = await new Client('other').post('/api/auth/sign-in', { email: accounts['colour-lead'], password: demoPassword });
+    expect(other.status).toBe(200);
+  });
+
+  it('a parallel burst of wrong passwords gets no more answers than the per-account limit before 429', async () => {
+    const email = `burst-${Date.now()}@hollowfell.example`;
+    const burst = signInLimits.perAccount * 3;
+    const statuses = await Promise.all(
+      Array.from({ length: burst }, () =>
+        anonymous().request('POST', '/api/auth/sign-in', { email, password: 'wrong' }, { 'x-forwarded-for': '10.79.0.1' }).then((r) => r.status),
+      ),
+    );
+    const answered = statuses.filter((s) => s !== 429);
+    expect(answered.every((s) => s === 401)).toBe(true);
+    // Each attempt takes its own count, so exactly the limit get an answer (no more, however they interleave).
+    expect(answered.length).toBe(signInLimits.perAccount);
   });
 
   it('a deactivated account cannot sign in and its session stops working', async () => {
