@@ -10,7 +10,6 @@ const probeOrigin = 'http://x.invalid';
 export function sameOriginPath(next: unknown, fallback = '/'): string {
   if (typeof next !== 'string' || !next.startsWith('/')) return fallback;
   if (next[1] === '/' || next[1] === '\\') return fallback;
-  // eslint-disable-next-line no-control-regex
   if (/[\u0000-\u001f\u007f]/.test(next)) return fallback;
   let resolved: URL;
   try {
