@@ -126,3 +126,50 @@ describe('sign-in', () => {
     expect(res.status).toBe(400);
   });
 });
+
+describe('members: mill and client accounts belong to an organisation of their kind', () => {
+  const fieldError = (res: { status: number; json: { fieldErrors?: Record<string, string[]> } }) => [res.status, Object.keys(res.json.fieldErrors ?? {})];
+
+  it('POST refuses an organisation of the wrong kind or of another studio', async () => {
+    const admin = await as('admin');
+    const orgs = (await admin.get('/api/organisations')).json.organisations as { id: string; name: string }[];
+    const mill = orgs.find((o) => o.name === 'Quellmoor Knitworks')!.id;
+    const client = orgs.find((o) => o.name === 'Varrow Sport')!.id;
+    const body = (organisationId: string) => ({ email: `org-${Date.now()}-${Math.random().toString(36).slice(2)}@quellmoor.example`, name: 'Yarn Store Hand', role: 'mill', password: 'temporary-pass-1', organisationId });
+    expect(fieldError(await admin.post('/api/members', body(client)))).toEqual([400, ['organisationId']]);
+    const other = await as('otherStudioAdmin');
+    expect(fieldError(await other.post('/api/members', body(mill)))).toEqual([400, ['organisationId']]);
+    const created = await admin.post('/api/members', body(mill));
+    expect(created.status).toBe(201);
+    expect(created.json.member.organisationName).toBe('Quellmoor Knitworks');
+  });
+
+  it('PATCH to a mill or client role checks the organisation is the studio\'s and of that kind', async () => {
+    const admin = await as('admin');
+    const orgs = (await admin.get('/api/organisations')).json.organisations as { id: string; name: string }[];
+    const mill = orgs.find((o) => o.name === 'Quellmoor Knitworks')!.id;
+    const client = orgs.find((o) => o.name === 'Varrow Sport')!.id;
+    const created = await admin.post('/api/members', { email: `role-${Date.now()}@hollowfell.example`, name: 'Role Changer', role: 'designer', password: 'temporary-pass-1' });
+    expect(created.status).toBe(201);
+    const path = `/api/members/${created.json.member.id}`;
+
+    expect(fieldError(await admin.patch(path, { role: 'mill' }))).toEqual([400, ['organisationId']]);
+    expect(fieldError(await admin.patch(path, { role: 'mill', organisationId: client }))).toEqual([400, ['organisationId']]);
+    const toMill = await admin.patch(path, { role: 'mill', organisationId: mill });
+    expect(toMill.status).toBe(200);
+    expect(toMill.json.member).toMatchObject({ role: 'mill', organisationName: 'Quellmoor Knitworks' });
+    // Now a mill account: becoming a client without naming a client keeps the mill, which does not fit.
+    expect(fieldError(await admin.patch(path, { role: 'client' }))).toEqual([400, ['organisationId']]);
+    expect((await admin.patch(path, { role: 'client', organisationId: client })).json.member.organisationName).toBe('Varrow Sport');
+    // Back to the studio: no organisation any more.
+    const toStudio = await admin.patch(path, { role: 'designer' });
+    expect(toStudio.status).toBe(200);
+    expect(toStudio.json.member.organisationName).toBeNull();
+
+    // Another studio cannot attach its member to this studio's mill.
+    const other = await as('otherStudioAdmin');
+    const theirs = await other.post('/api/members', { email: `oxbow-${Date.now()}@oxbow.example`, name: 'Oxbow Knitter', role: 'designer', password: 'temporary-pass-1' });
+    expect(theirs.status).toBe(201);
+    expect(fieldError(await other.patch(`/api/members/${theirs.json.member.id}`, { role: 'mill', organisationId: mill }))).toEqual([400, ['organisationId']]);
+  });
+});
