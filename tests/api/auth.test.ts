@@ -1,6 +1,7 @@
-import { describe, expect, it } from 'vitest';
+import knexFactory from 'knex';
+import { describe, expect, inject, it } from 'vitest';
 import { accounts, anonymous, as, Client, demoPassword } from './helpers';
-import { signInLimits } from '@/lib/db/sign-in-attempts';
+import { reserveSignInAttempt, signInLimits } from '@/lib/db/sign-in-attempts';
 
 describe('sign-in', () => {
   it('signs in, answers who am I, signs out', async () => {
@@ -76,20 +77,40 @@ describe('sign-in', () => {
     expect(last).toBe(429);
   });
 
-  it('without a known address, failures against other accounts never block an account', async () => {
-    // No X-Forwarded-For header: the address is unknown, so only the per-account counts apply.
+  it('failures against one account, past its limit, do not block another account from the same address', async () => {
     const c = anonymous();
+    const addr = { 'x-forwarded-for': '10.80.0.1' };
     const hammered = `hammered-${Date.now()}@elsewhere.example`;
     const statuses: number[] = [];
-    for (let i = 0; i <= signInLimits.perAccount + 2; i++) {
-      statuses.push((await c.post('/api/auth/sign-in', { email: hammered, password: 'wrong' })).status);
+    for (let i = 0; i <= signInLimits.perAddress + 5; i++) {
+      statuses.push((await c.request('POST', '/api/auth/sign-in', { email: hammered, password: 'wrong' }, addr)).status);
     }
+    expect(statuses.filter((s) => s === 401)).toHaveLength(signInLimits.perAccount);
     expect(statuses.at(-1)).toBe(429);
-    for (let i = 0; i <= signInLimits.perAddress; i++) {
-      expect((await c.post('/api/auth/sign-in', { email: `unknown-${i}-${Date.now()}@elsewhere.example`, password: 'x' })).status).toBe(401);
-    }
-    const other = await new Client('other').post('/api/auth/sign-in', { email: accounts['colour-lead'], password: demoPassword });
+    const other = await new Client('other').request('POST', '/api/auth/sign-in', { email: accounts['colour-lead'], password: demoPassword }, addr);
     expect(other.status).toBe(200);
+  });
+
+  it('an unknown address has no counter of its own: failures of many accounts never add up against another', async () => {
+    // The test server sits behind a trusted proxy (every request has an address), so this is the
+    // data layer as a server without TRUST_PROXY calls it: address null.
+    const knex = knexFactory({ client: 'pg', connection: inject('databaseUrl') });
+    try {
+      const now = new Date();
+      const probe = `${Date.now()}-${Math.random().toString(36).slice(2)}`;
+      for (let i = 0; i <= signInLimits.perAddress + 5; i++) {
+        expect((await reserveSignInAttempt(`unknown-${i}-${probe}@elsewhere.example`, null, now, knex)).waitSeconds).toBe(0);
+      }
+      expect((await reserveSignInAttempt(`another-${probe}@elsewhere.example`, null, now, knex)).waitSeconds).toBe(0);
+      // The same failures from one known address do add up.
+      let last = 0;
+      for (let i = 0; i <= signInLimits.perAddress; i++) {
+        last = (await reserveSignInAttempt(`known-${i}-${probe}@elsewhere.example`, `10.81.0.1-${probe}`, now, knex)).waitSeconds;
+      }
+      expect(last).toBeGreaterThan(0);
+    } finally {
+      await knex.destroy();
+    }
   });
 
   it('a parallel burst of wrong passwords gets no more answers than the per-account limit before 429', async () => {

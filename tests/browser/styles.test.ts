@@ -62,12 +62,14 @@ describe('styles in the browser', () => {
     const style = (await (await as('designer')).post('/api/styles', newStyleBody())).json.style;
     const page = await signIn(browser, accounts.designer);
     // Hold back the page refresh the first save starts, so the form cannot learn the new version from it.
-    await page.route(/[?&]_rsc=/, () => { /* never answered */ });
+    let held = 0;
+    await page.route(/[?&]_rsc=/, () => { held++; /* never answered */ });
     await page.goto(`${baseUrl()}/styles/${style.id}`);
     const form = page.locator('form', { has: page.getByRole('button', { name: 'Save changes' }) });
     await form.getByLabel('Name', { exact: true }).fill('Saved once');
     await form.getByRole('button', { name: 'Save changes' }).click();
     await expect.poll(() => form.getByRole('status').allTextContents()).toEqual(['Saved.']);
+    await expect.poll(() => held).toBeGreaterThan(0);
     await form.getByLabel('Name', { exact: true }).fill('Saved twice');
     await form.getByRole('button', { name: 'Save changes' }).click();
     await expect.poll(async () => (await (await as('designer')).get(`/api/styles/${style.id}`)).json.style.name).toBe('Saved twice');
