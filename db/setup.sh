@@ -4,7 +4,9 @@
 #   bash db/setup.sh stop    stop the server (NEEDLEMAP_PG_STOP_MODE=immediate for a crash-like stop)
 #   bash db/setup.sh status
 # The data directory lives inside the project (.pgdata/, git-ignored). The server runs as the
-# `postgres` OS user; the app connects as role `needlemap` over TCP with a password.
+# `postgres` OS user; the app connects as role `needlemap` over TCP with a password. The socket
+# (trusted without a password) is for the server's own OS user only: its folder and the socket are
+# mode 0700, and this script's own psql runs as that user.
 # NEEDLEMAP_PG_PORT and NEEDLEMAP_PGDATA (an absolute folder) run a second, separate cluster, e.g.
 # for the fault tests, which stop and start their own server.
 set -euo pipefail
@@ -57,7 +59,7 @@ is_running() {
 
 psql_admin() {
   local bin; bin="$(find_bin)"
-  "$bin/psql" -h "$RUN" -p "$PGPORT" -U postgres -v ON_ERROR_STOP=1 -qAt "$@"
+  as_postgres "$bin/psql" -h "$RUN" -p "$PGPORT" -U postgres -v ON_ERROR_STOP=1 -qAt "$@"
 }
 
 start() {
@@ -66,6 +68,7 @@ start() {
   mkdir -p "$PGROOT" "$RUN"
   id postgres >/dev/null 2>&1 || { echo "OS user postgres missing (is the postgresql package installed?)" >&2; exit 1; }
   [ "$(id -u)" = "0" ] && chown -R postgres "$PGROOT"
+  chmod 0700 "$RUN"
   check_traversable
   if [ ! -f "$DATA/PG_VERSION" ]; then
     echo "Creating a PostgreSQL cluster in $DATA"
@@ -76,7 +79,7 @@ start() {
     echo "PostgreSQL already running on 127.0.0.1:$PGPORT"
   else
     as_postgres "$bin/pg_ctl" -D "$DATA" -l "$LOG" -w -t 60 \
-      -o "-c listen_addresses=127.0.0.1 -p $PGPORT -k $RUN -c max_connections=200 -c fsync=${NEEDLEMAP_PG_FSYNC:-on}" start >/dev/null
+      -o "-c listen_addresses=127.0.0.1 -p $PGPORT -k $RUN -c unix_socket_permissions=0700 -c max_connections=200 -c fsync=${NEEDLEMAP_PG_FSYNC:-on}" start >/dev/null
     echo "PostgreSQL started on 127.0.0.1:$PGPORT"
   fi
   # The application role (idempotent).

@@ -3,12 +3,13 @@ import { SignInForm } from '@/components/auth/sign-in-form';
 import { NeedlemapMark } from '@/components/shell/mark';
 import { redirect } from 'next/navigation';
 import { currentUser } from '@/lib/auth/authorize';
+import { sameOriginPath } from '@/lib/auth/next-path';
 
 export const metadata: Metadata = { title: 'Sign in' };
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<{ next?: string }> }) {
   const { next } = await searchParams;
-  const safeNext = next && next.startsWith('/') && !next.startsWith('//') ? next : '/styles';
+  const safeNext = sameOriginPath(next);
   // Already signed in: go on. (A database outage must not hide the sign-in page.)
   const user = await currentUser().catch(() => null);
   if (user) redirect(safeNext);

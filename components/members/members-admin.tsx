@@ -9,7 +9,8 @@ import type { z } from 'zod';
 import { api, ApiError } from '@/lib/api/client';
 import type { Member } from '@/lib/db/users';
 import { memberCreateSchema, type MemberCreate } from '@/lib/validations/auth';
-import { roleLabels, roles, type Role } from '@/lib/auth/roles';
+import { isOutsideRole, roleLabels, roles, type Role } from '@/lib/auth/roles';
+import type { Organisation } from '@/lib/db/organisations';
 import { Card, Notice } from '@/components/ui/card';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Select } from '@/components/ui/field';
@@ -17,12 +18,56 @@ import { useOrganisations } from '@/components/styles/use-styles';
 
 const col = createColumnHelper<Member>();
 
+type MemberChange = Partial<{ role: Role; active: boolean; organisationId: string }>;
+
+/**
+ * The role select of one member. A change to a studio role is sent at once; a mill or client account
+ * belongs to an organisation of that kind, so for those the organisation is asked for first.
+ */
+function RoleCell({ member, organisations, onChange }: { member: Member; organisations: Organisation[]; onChange: (body: MemberChange) => void }) {
+  const [asked, setAsked] = useState<'mill' | 'client' | null>(null);
+  const [organisationId, setOrganisationId] = useState('');
+  const choices = asked ? organisations.filter((o) => o.kind === asked) : [];
+  const kindWord = asked === 'mill' ? 'mill' : 'client';
+  return (
+    <div className="space-y-1.5">
+      <Select
+        aria-label={`Role of ${member.name}`}
+        className="h-8 w-40"
+        value={asked ?? member.role}
+        disabled={!member.active}
+        onChange={(e) => {
+          const role = e.target.value as Role;
+          setOrganisationId('');
+          if (role === member.role) setAsked(null);
+          else if (isOutsideRole(role)) setAsked(role);
+          else { setAsked(null); onChange({ role }); }
+        }}
+      >
+        {roles.map((r) => <option key={r} value={r}>{roleLabels[r]}</option>)}
+      </Select>
+      {asked ? (
+        <div className="flex items-center gap-1.5">
+          <Select aria-label={`The ${kindWord} ${member.name} belongs to`} className="h-8 w-40" value={organisationId} onChange={(e) => setOrganisationId(e.target.value)}>
+            <option value="">{choices.length ? `Choose the ${kindWord}…` : `No ${kindWord} in the studio`}</option>
+            {choices.map((o) => <option key={o.id} value={o.id}>{o.name}</option>)}
+          </Select>
+          <Button size="sm" variant="primary" disabled={!organisationId} onClick={() => { onChange({ role: asked, organisationId }); setAsked(null); }}>Change</Button>
+          <Button size="sm" variant="ghost" onClick={() => setAsked(null)}>Cancel</Button>
+        </div>
+      ) : null}
+    </div>
+  );
+}
+
 export function MembersAdmin({ selfId }: { selfId: string }) {
   const qc = useQueryClient();
   const members = useQuery({ queryKey: ['members'], queryFn: () => api<{ members: Member[] }>('/api/members').then((r) => r.members) });
+  const orgs = useOrganisations();
+  const organisations = orgs.data;
   const [error, setError] = useState<string | null>(null);
   const patch = useMutation({
-    mutationFn: ({ id, body }: { id: string; body: Partial<{ role: Role; active: boolean }> }) =>
+    mutationFn: ({ id, body }: { id: string; body: MemberChange }) =>
       api(`/api/members/${id}`, { method: 'PATCH', json: body }),
     onSuccess: () => { setError(null); return qc.invalidateQueries({ queryKey: ['members'] }); },
     onError: (err) => setError(err instanceof ApiError ? err.message : 'That did not work.'),
@@ -35,15 +80,11 @@ export function MembersAdmin({ selfId }: { selfId: string }) {
       col.accessor('role', {
         header: 'Role',
         cell: (c) => (
-          <Select
-            aria-label={`Role of ${c.row.original.name}`}
-            className="h-8 w-40"
-            value={c.getValue()}
-            disabled={!c.row.original.active}
-            onChange={(e) => patch.mutate({ id: c.row.original.id, body: { role: e.target.value as Role } })}
-          >
-            {roles.map((r) => <option key={r} value={r}>{roleLabels[r]}</option>)}
-          </Select>
+          <RoleCell
+            member={c.row.original}
+            organisations={organisations ?? []}
+            onChange={(body) => patch.mutate({ id: c.row.original.id, body })}
+          />
         ),
       }),
       col.accessor((m) => m.organisationName ?? 'Studio', { id: 'org', header: 'Organisation' }),
@@ -62,7 +103,7 @@ export function MembersAdmin({ selfId }: { selfId: string }) {
           ),
       }),
     ],
-    [patch, selfId],
+    [patch, selfId, organisations],
   );
   const table = useReactTable({ data: members.data ?? [], columns, getCoreRowModel: getCoreRowModel() });
 

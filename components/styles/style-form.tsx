@@ -38,6 +38,9 @@ export function StyleForm({ style, readOnly = false }: { style?: Style; readOnly
   const orgs = useOrganisations(!readOnly);
   const [serverError, setServerError] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
+  // The version this form last saw: its own saves raise it at once, without waiting for the page to
+  // refresh; a newer version from someone else is not taken over silently (it answers 409).
+  const [version, setVersion] = useState(style?.version ?? 0);
   const form = useForm<FormIn, unknown, StyleCreate>({
     resolver: zodResolver(styleCreateSchema) as Resolver<FormIn, unknown, StyleCreate>,
     defaultValues: style ? toForm(style) : defaults,
@@ -61,8 +64,9 @@ export function StyleForm({ style, readOnly = false }: { style?: Style; readOnly
       if (style) {
         const { style: updated } = await api<{ style: Style }>(`/api/styles/${style.id}`, {
           method: 'PATCH',
-          json: { ...values, version: style.version },
+          json: { ...values, version },
         });
+        setVersion(updated.version);
         qc.setQueryData(['styles', style.id], updated);
         await qc.invalidateQueries({ queryKey: ['styles'] });
         reset(toForm(updated));

@@ -57,14 +57,40 @@ function fieldList(d: Record<string, unknown>): string | null {
 /** One line of plain words for an audit entry. */
 export function describeAudit(action: string, details: Record<string, unknown>): string {
   const verb = verbs[action] ?? action;
-  if (action === 'style.update') return `${verb}: ${Object.keys(details).join(', ') || 'no fields'}`;
+  if (action === 'style.update') return `${verb}: ${describeStyleFields(details) || 'no fields'}`;
   if (action === 'style.share') return `${verb} ${String(details.organisation ?? '')}`;
+  if (action === 'style.unshare' && typeof details.organisation === 'string') {
+    return `${verb} ${details.organisation}${details.reason === 'client changed' ? ' (no longer the client)' : ''}`;
+  }
   if (action === 'body-map.save' && typeof details.zones === 'number') return `${verb} (${details.zones} zones)`;
   if (action.startsWith('colourway.') || action.startsWith('lab-dip.')) return describeColour(action, verb, details);
   if (action.startsWith('fit.')) return describeFit(action, verb, details);
   if (action.startsWith('brief.') || action === 'quote.save' || action === 'studio.costing') return describeBrief(action, verb, details);
   if (/^(style\.release|proposal\.|test-knit\.|mill-pack\.|file\.|mail\.)/.test(action)) return describeMill(action, verb, details);
   return verb;
+}
+
+const styleFieldLabels: Record<string, string> = {
+  code: 'style code', name: 'name', season: 'season', client: 'client', clientId: 'client',
+  garmentType: 'garment type', construction: 'construction', status: 'status', machine: 'machine setup', sizes: 'size range',
+};
+
+/**
+ * The fields a style edit changed; short ones with their values as from → to. Older entries hold
+ * only the new value of every field sent, and are listed by field name.
+ */
+function describeStyleFields(d: Record<string, unknown>): string {
+  const shown = (v: unknown) => (v === null || v === '' ? 'none' : String(v));
+  return Object.entries(d)
+    .map(([key, value]) => {
+      const label = styleFieldLabels[key] ?? key;
+      if (value && typeof value === 'object' && 'from' in value && 'to' in value) {
+        const { from, to } = value as { from: unknown; to: unknown };
+        return `${label} (${shown(from)} → ${shown(to)})`;
+      }
+      return label;
+    })
+    .join(', ');
 }
 
 /** Releases, client reviews, test knits, mill packs, uploads: which revision, texture, mill or file. */

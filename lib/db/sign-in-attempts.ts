@@ -8,33 +8,51 @@ function windowStart(now: Date): Date {
   return new Date(Math.floor(now.getTime() / ms) * ms);
 }
 
-/** Seconds until the caller may try again, or 0 when under both limits. Counted in PostgreSQL. */
-export async function signInBlockedFor(email: string, address: string, now = new Date(), q: Db = db()): Promise<number> {
-  const start = windowStart(now);
-  const rows = (await q('sign_in_attempts')
-    .whereIn('key', [`email:${email}`, `ip:${address}`])
-    .andWhere('window_start', start)
-    .select('key', 'failures')) as { key: string; failures: number }[];
-  const blocked = rows.some((r) =>
-    r.key.startsWith('email:') ? r.failures >= signInLimits.perAccount : r.failures >= signInLimits.perAddress,
-  );
-  if (!blocked) return 0;
-  return Math.max(1, Math.ceil((start.getTime() + signInLimits.windowMinutes * 60_000 - now.getTime()) / 1000));
+/** Adds one to a counter of this window, in one statement, and answers the new count. */
+async function countOne(q: Db, key: string, start: Date): Promise<number> {
+  const { rows } = (await q.raw(
+    `insert into sign_in_attempts (key, window_start, failures) values (?, ?, 1)
+     on conflict (key, window_start) do update set failures = sign_in_attempts.failures + 1
+     returning failures`,
+    [key, start],
+  )) as { rows: { failures: number }[] };
+  return rows[0]!.failures;
 }
 
-export async function recordSignInFailure(email: string, address: string, now = new Date(), q: Db = db()): Promise<void> {
+async function takeOneBack(q: Db, key: string, start: Date): Promise<void> {
+  await q('sign_in_attempts').where({ key, window_start: start }).update({ failures: q.raw('greatest(failures - 1, 0)') });
+}
+
+/** One password check, counted as a failure before the password is compared. */
+export type SignInAttempt = { email: string; address: string | null; windowStart: Date; waitSeconds: number };
+
+/**
+ * Counts a password check as a failure up front and then compares the count with the limit: the
+ * account's count first, then the address's when the address is known (an unknown address has no
+ * counter: it would be one counter for everybody). Each count is raised and read in one statement,
+ * so parallel attempts each get their own number and a burst cannot pass the limit. `waitSeconds` is
+ * 0 when the check may go ahead, otherwise the seconds until the window ends; a refused attempt adds
+ * nothing to the other counter. A check that turns out right is taken back with `signInSucceeded`.
+ */
+export async function reserveSignInAttempt(email: string, address: string | null, now = new Date(), q: Db = db()): Promise<SignInAttempt> {
   const start = windowStart(now);
-  for (const key of [`email:${email}`, `ip:${address}`]) {
-    await q.raw(
-      `insert into sign_in_attempts (key, window_start, failures) values (?, ?, 1)
-       on conflict (key, window_start) do update set failures = sign_in_attempts.failures + 1`,
-      [key, start],
-    );
-  }
+  const attempt: SignInAttempt = { email, address, windowStart: start, waitSeconds: 0 };
+  const refused = (): SignInAttempt => ({
+    ...attempt,
+    waitSeconds: Math.max(1, Math.ceil((start.getTime() + signInLimits.windowMinutes * 60_000 - now.getTime()) / 1000)),
+  });
   // Old windows are of no use; keep the table small.
   await q('sign_in_attempts').where('window_start', '<', new Date(start.getTime() - 24 * 3600_000)).del();
+  if ((await countOne(q, `email:${email}`, start)) > signInLimits.perAccount) return refused();
+  if (address !== null && (await countOne(q, `ip:${address}`, start)) > signInLimits.perAddress) {
+    await takeOneBack(q, `email:${email}`, start);
+    return refused();
+  }
+  return attempt;
 }
 
-export async function clearSignInFailures(email: string, q: Db = db()): Promise<void> {
-  await q('sign_in_attempts').where('key', `email:${email}`).del();
+/** The password was right: the account's failures are forgotten and the address's count is taken back. */
+export async function signInSucceeded(attempt: SignInAttempt, q: Db = db()): Promise<void> {
+  await q('sign_in_attempts').where('key', `email:${attempt.email}`).del();
+  if (attempt.address !== null) await takeOneBack(q, `ip:${attempt.address}`, attempt.windowStart);
 }

@@ -153,10 +153,12 @@ export async function findStyleStamped(user: SessionUser, id: string, q: Db = db
   return findStyleWith<{ stamp: string }>(user, id, { stamp: q.raw(dataStampSql) }, q);
 }
 
-async function assertClientOfStudio(user: SessionUser, clientId: string | null | undefined, q: Db) {
-  if (!clientId) return;
-  const org = await q('organisations').where({ id: clientId, studio_id: user.studioId, kind: 'client' }).first();
+/** The client organisation's name; 400 when it is not a client organisation of the studio. */
+async function assertClientOfStudio(user: SessionUser, clientId: string | null | undefined, q: Db): Promise<string | null> {
+  if (!clientId) return null;
+  const org = (await q('organisations').where({ id: clientId, studio_id: user.studioId, kind: 'client' }).first('name')) as { name: string } | undefined;
   if (!org) throw new HttpError(400, 'Some fields need attention.', { fieldErrors: { clientId: ['Unknown client'] } });
+  return org.name;
 }
 
 function uniqueViolation(err: unknown): boolean {
@@ -204,13 +206,33 @@ export async function createStyle(user: SessionUser, input: StyleCreate, q: Knex
   });
 }
 
+/** JSON with object keys in one order, so values read back from jsonb compare equal to what was sent. */
+function canonicalJson(value: unknown): string {
+  return JSON.stringify(value, (_key, v: unknown) =>
+    v && typeof v === 'object' && !Array.isArray(v)
+      ? Object.fromEntries(Object.entries(v as Record<string, unknown>).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0)))
+      : v,
+  );
+}
+
+/** The short text fields of a style, logged in the history as from → to. */
+const scalarFields = [
+  ['code', 'code'], ['name', 'name'], ['season', 'season'],
+  ['garmentType', 'garment_type'], ['construction', 'construction'], ['status', 'status'],
+] as const satisfies readonly (readonly [keyof StylePatch & keyof Style, string])[];
+
 /**
  * Applies a patch when `patch.version` is the stored version; otherwise 409 and nothing changes.
+ * Only the fields whose value differs from the stored one are written and logged (short fields as
+ * from → to); a patch that changes nothing answers the style as it is, without a new version. A new
+ * client is given access and the former client's access ends, in the same transaction.
  */
 export async function updateStyle(user: SessionUser, id: string, patch: StylePatch, q: Knex = db()): Promise<Style> {
   return q.transaction(async (trx) => {
     const current = await findStyle(user, id, trx);
     if (!current) throw notFound('Style not found.');
+    const stale = () =>
+      conflict('Someone saved this style after you opened it. Reload to see their changes.', { currentVersion: current.version });
     const construction = patch.construction ?? current.construction;
     const machine = patch.machine ?? current.machine;
     if ((construction === 'seamless') !== (machine.kind === 'circular')) {
@@ -218,39 +240,64 @@ export async function updateStyle(user: SessionUser, id: string, patch: StylePat
         fieldErrors: { 'machine.kind': ['Seamless styles use a circular machine; flat styles a V-bed'] },
       });
     }
-    await assertClientOfStudio(user, patch.clientId, trx);
-    const values: Record<string, unknown> = { updated_at: trx.fn.now(), version: trx.raw('version + 1') };
+    const clientName = await assertClientOfStudio(user, patch.clientId, trx);
+    if (patch.version !== current.version) throw stale();
+    const values: Record<string, unknown> = {};
     const changed: Record<string, unknown> = {};
-    const map: [keyof StylePatch, string][] = [
-      ['code', 'code'], ['name', 'name'], ['season', 'season'], ['clientId', 'client_id'],
-      ['garmentType', 'garment_type'], ['construction', 'construction'], ['status', 'status'],
-    ];
-    for (const [k, col] of map) {
-      if (patch[k] !== undefined) { values[col] = patch[k]; changed[k] = patch[k]; }
+    for (const [k, col] of scalarFields) {
+      const next = patch[k];
+      if (next !== undefined && next !== current[k]) {
+        values[col] = next;
+        changed[k] = { from: current[k], to: next };
+      }
     }
-    if (patch.machine) { values.machine = JSON.stringify(patch.machine); changed.machine = patch.machine; }
-    if (patch.sizes) { values.sizes = JSON.stringify(patch.sizes); changed.sizes = patch.sizes; }
+    const clientChanged = patch.clientId !== undefined && patch.clientId !== current.clientId;
+    if (clientChanged) {
+      values.client_id = patch.clientId;
+      changed.client = { from: current.clientName, to: clientName };
+    }
+    if (patch.machine && canonicalJson(patch.machine) !== canonicalJson(current.machine)) {
+      values.machine = JSON.stringify(patch.machine);
+      changed.machine = patch.machine;
+    }
+    if (patch.sizes && canonicalJson(patch.sizes) !== canonicalJson(current.sizes)) {
+      values.sizes = JSON.stringify(patch.sizes);
+      changed.sizes = patch.sizes;
+    }
+    if (Object.keys(changed).length === 0) return current;
+
     let n: number;
     try {
       n = await trx('styles')
         .where({ id, studio_id: user.studioId, version: patch.version })
         .whereNull('archived_at')
-        .update(values);
+        .update({ ...values, updated_at: trx.fn.now(), version: trx.raw('version + 1') });
     } catch (err) {
       if (uniqueViolation(err)) throw codeTaken();
       throw err;
     }
-    if (n === 0) {
-      throw conflict('Someone saved this style after you opened it. Reload to see their changes.', {
-        currentVersion: current.version,
-      });
-    }
-    if (patch.clientId) {
-      await trx('style_shares').insert({ style_id: id, organisation_id: patch.clientId, shared_by: user.id }).onConflict().ignore();
-    }
+    if (n === 0) throw stale();
     await trx('audit_log').insert({
       studio_id: user.studioId, style_id: id, user_id: user.id, action: 'style.update', details: JSON.stringify(changed),
     });
+    if (clientChanged) {
+      if (current.clientId) {
+        // Only the former client organisation's own share: mill shares stay.
+        const removed = await trx('style_shares')
+          .where({ style_id: id, organisation_id: current.clientId })
+          .whereIn('organisation_id', trx('organisations').where({ studio_id: user.studioId, kind: 'client' }).select('id'))
+          .del();
+        if (removed > 0) {
+          await trx('audit_log').insert({
+            studio_id: user.studioId, style_id: id, user_id: user.id, action: 'style.unshare',
+            details: JSON.stringify({ organisationId: current.clientId, organisation: current.clientName, reason: 'client changed' }),
+          });
+        }
+      }
+      if (patch.clientId) {
+        await trx('style_shares').insert({ style_id: id, organisation_id: patch.clientId, shared_by: user.id }).onConflict().ignore();
+      }
+    }
     const style = await findStyle(user, id, trx);
     if (!style) throw notFound();
     return style;

@@ -1,5 +1,7 @@
-import { describe, expect, it } from 'vitest';
+import knexFactory from 'knex';
+import { describe, expect, inject, it } from 'vitest';
 import { accounts, anonymous, as, Client, demoPassword } from './helpers';
+import { reserveSignInAttempt, signInLimits } from '@/lib/db/sign-in-attempts';
 
 describe('sign-in', () => {
   it('signs in, answers who am I, signs out', async () => {
@@ -65,6 +67,66 @@ describe('sign-in', () => {
     expect(other.status).toBe(401);
   });
 
+  it('counts the address the proxy added (the last forwarded entry), not what the caller wrote before it', async () => {
+    const c = anonymous();
+    let last = 0;
+    for (let i = 0; i <= signInLimits.perAddress; i++) {
+      const forwarded = `10.66.${i}.1, 10.78.0.1`;
+      last = (await c.request('POST', '/api/auth/sign-in', { email: `spoof${i}@elsewhere.example`, password: 'x' }, { 'x-forwarded-for': forwarded })).status;
+    }
+    expect(last).toBe(429);
+  });
+
+  it('failures against one account, past its limit, do not block another account from the same address', async () => {
+    const c = anonymous();
+    const addr = { 'x-forwarded-for': '10.80.0.1' };
+    const hammered = `hammered-${Date.now()}@elsewhere.example`;
+    const statuses: number[] = [];
+    for (let i = 0; i <= signInLimits.perAddress + 5; i++) {
+      statuses.push((await c.request('POST', '/api/auth/sign-in', { email: hammered, password: 'wrong' }, addr)).status);
+    }
+    expect(statuses.filter((s) => s === 401)).toHaveLength(signInLimits.perAccount);
+    expect(statuses.at(-1)).toBe(429);
+    const other = await new Client('other').request('POST', '/api/auth/sign-in', { email: accounts['colour-lead'], password: demoPassword }, addr);
+    expect(other.status).toBe(200);
+  });
+
+  it('an unknown address has no counter of its own: failures of many accounts never add up against another', async () => {
+    // The test server sits behind a trusted proxy (every request has an address), so this is the
+    // data layer as a server without TRUST_PROXY calls it: address null.
+    const knex = knexFactory({ client: 'pg', connection: inject('databaseUrl') });
+    try {
+      const now = new Date();
+      const probe = `${Date.now()}-${Math.random().toString(36).slice(2)}`;
+      for (let i = 0; i <= signInLimits.perAddress + 5; i++) {
+        expect((await reserveSignInAttempt(`unknown-${i}-${probe}@elsewhere.example`, null, now, knex)).waitSeconds).toBe(0);
+      }
+      expect((await reserveSignInAttempt(`another-${probe}@elsewhere.example`, null, now, knex)).waitSeconds).toBe(0);
+      // The same failures from one known address do add up.
+      let last = 0;
+      for (let i = 0; i <= signInLimits.perAddress; i++) {
+        last = (await reserveSignInAttempt(`known-${i}-${probe}@elsewhere.example`, `10.81.0.1-${probe}`, now, knex)).waitSeconds;
+      }
+      expect(last).toBeGreaterThan(0);
+    } finally {
+      await knex.destroy();
+    }
+  });
+
+  it('a parallel burst of wrong passwords gets no more answers than the per-account limit before 429', async () => {
+    const email = `burst-${Date.now()}@hollowfell.example`;
+    const burst = signInLimits.perAccount * 3;
+    const statuses = await Promise.all(
+      Array.from({ length: burst }, () =>
+        anonymous().request('POST', '/api/auth/sign-in', { email, password: 'wrong' }, { 'x-forwarded-for': '10.79.0.1' }).then((r) => r.status),
+      ),
+    );
+    const answered = statuses.filter((s) => s !== 429);
+    expect(answered.every((s) => s === 401)).toBe(true);
+    // Each attempt takes its own count, so exactly the limit get an answer (no more, however they interleave).
+    expect(answered.length).toBe(signInLimits.perAccount);
+  });
+
   it('a deactivated account cannot sign in and its session stops working', async () => {
     const admin = await as('admin');
     const email = `temp-${Date.now()}@hollowfell.example`;
@@ -83,5 +145,52 @@ describe('sign-in', () => {
     const me = await admin.get('/api/auth/me');
     const res = await admin.patch(`/api/members/${me.json.user.id}`, { role: 'designer' });
     expect(res.status).toBe(400);
+  });
+});
+
+describe('members: mill and client accounts belong to an organisation of their kind', () => {
+  const fieldError = (res: { status: number; json: { fieldErrors?: Record<string, string[]> } }) => [res.status, Object.keys(res.json.fieldErrors ?? {})];
+
+  it('POST refuses an organisation of the wrong kind or of another studio', async () => {
+    const admin = await as('admin');
+    const orgs = (await admin.get('/api/organisations')).json.organisations as { id: string; name: string }[];
+    const mill = orgs.find((o) => o.name === 'Quellmoor Knitworks')!.id;
+    const client = orgs.find((o) => o.name === 'Varrow Sport')!.id;
+    const body = (organisationId: string) => ({ email: `org-${Date.now()}-${Math.random().toString(36).slice(2)}@quellmoor.example`, name: 'Yarn Store Hand', role: 'mill', password: 'temporary-pass-1', organisationId });
+    expect(fieldError(await admin.post('/api/members', body(client)))).toEqual([400, ['organisationId']]);
+    const other = await as('otherStudioAdmin');
+    expect(fieldError(await other.post('/api/members', body(mill)))).toEqual([400, ['organisationId']]);
+    const created = await admin.post('/api/members', body(mill));
+    expect(created.status).toBe(201);
+    expect(created.json.member.organisationName).toBe('Quellmoor Knitworks');
+  });
+
+  it('PATCH to a mill or client role checks the organisation is the studio\'s and of that kind', async () => {
+    const admin = await as('admin');
+    const orgs = (await admin.get('/api/organisations')).json.organisations as { id: string; name: string }[];
+    const mill = orgs.find((o) => o.name === 'Quellmoor Knitworks')!.id;
+    const client = orgs.find((o) => o.name === 'Varrow Sport')!.id;
+    const created = await admin.post('/api/members', { email: `role-${Date.now()}@hollowfell.example`, name: 'Role Changer', role: 'designer', password: 'temporary-pass-1' });
+    expect(created.status).toBe(201);
+    const path = `/api/members/${created.json.member.id}`;
+
+    expect(fieldError(await admin.patch(path, { role: 'mill' }))).toEqual([400, ['organisationId']]);
+    expect(fieldError(await admin.patch(path, { role: 'mill', organisationId: client }))).toEqual([400, ['organisationId']]);
+    const toMill = await admin.patch(path, { role: 'mill', organisationId: mill });
+    expect(toMill.status).toBe(200);
+    expect(toMill.json.member).toMatchObject({ role: 'mill', organisationName: 'Quellmoor Knitworks' });
+    // Now a mill account: becoming a client without naming a client keeps the mill, which does not fit.
+    expect(fieldError(await admin.patch(path, { role: 'client' }))).toEqual([400, ['organisationId']]);
+    expect((await admin.patch(path, { role: 'client', organisationId: client })).json.member.organisationName).toBe('Varrow Sport');
+    // Back to the studio: no organisation any more.
+    const toStudio = await admin.patch(path, { role: 'designer' });
+    expect(toStudio.status).toBe(200);
+    expect(toStudio.json.member.organisationName).toBeNull();
+
+    // Another studio cannot attach its member to this studio's mill.
+    const other = await as('otherStudioAdmin');
+    const theirs = await other.post('/api/members', { email: `oxbow-${Date.now()}@oxbow.example`, name: 'Oxbow Knitter', role: 'designer', password: 'temporary-pass-1' });
+    expect(theirs.status).toBe(201);
+    expect(fieldError(await other.patch(`/api/members/${theirs.json.member.id}`, { role: 'mill', organisationId: mill }))).toEqual([400, ['organisationId']]);
   });
 });

@@ -83,7 +83,44 @@ describe('styles API', () => {
     await designer.patch(`/api/styles/${created.id}`, { version: created.version, status: 'developing' });
     const hist = await designer.get(`/api/styles/${created.id}/history`);
     expect(hist.json.entries.map((e: { action: string }) => e.action)).toEqual(['style.update', 'style.create']);
-    expect(hist.json.entries[0].details).toEqual({ status: 'developing' });
+    expect(hist.json.entries[0].details).toEqual({ status: { from: 'draft', to: 'developing' } });
+  });
+
+  it('logs only the fields whose value changed, even when the form sends all of them', async () => {
+    const designer = await as('designer');
+    const body = newStyleBody();
+    const created = (await designer.post('/api/styles', body)).json.style;
+    // Every field, as the style form sends them; the machine with its keys in another order than stored.
+    const machine = Object.fromEntries(Object.entries(body.machine).reverse());
+    const all = { code: body.code, name: body.name, season: body.season, clientId: null, garmentType: body.garmentType,
+      construction: body.construction, machine, sizes: body.sizes, status: 'draft' };
+    const renamed = await designer.patch(`/api/styles/${created.id}`, { ...all, version: created.version, name: 'Renamed top' });
+    expect(renamed.status).toBe(200);
+    expect(renamed.json.style.version).toBe(created.version + 1);
+    const hist = (await designer.get(`/api/styles/${created.id}/history`)).json.entries;
+    expect(hist[0].details).toEqual({ name: { from: body.name, to: 'Renamed top' } });
+
+    const resized = await designer.patch(`/api/styles/${created.id}`, {
+      ...all, name: 'Renamed top', version: renamed.json.style.version, sizes: { labels: ['S', 'M', 'L', 'XL'], base: 'M' },
+    });
+    expect(resized.status).toBe(200);
+    expect(Object.keys((await designer.get(`/api/styles/${created.id}/history`)).json.entries[0].details)).toEqual(['sizes']);
+  });
+
+  it('a save that changes nothing keeps the version and writes no history entry', async () => {
+    const designer = await as('designer');
+    const body = newStyleBody();
+    const created = (await designer.post('/api/styles', body)).json.style;
+    const same = await designer.patch(`/api/styles/${created.id}`, {
+      version: created.version, code: body.code, name: body.name, season: body.season, clientId: null,
+      garmentType: body.garmentType, construction: body.construction, machine: created.machine, sizes: body.sizes, status: 'draft',
+    });
+    expect(same.status).toBe(200);
+    expect(same.json.style.version).toBe(created.version);
+    const hist = (await designer.get(`/api/styles/${created.id}/history`)).json.entries;
+    expect(hist.map((e: { action: string }) => e.action)).toEqual(['style.create']);
+    // A stale version is still refused.
+    expect((await designer.patch(`/api/styles/${created.id}`, { version: created.version + 5, name: body.name })).status).toBe(409);
   });
 });
 
@@ -131,5 +168,29 @@ describe('isolation', () => {
     expect((await mill.get(`/api/styles/${created.id}`)).status).toBe(200);
     expect((await designer.delete(`/api/styles/${created.id}/shares/${quellmoor.id}`)).status).toBe(200);
     expect((await mill.get(`/api/styles/${created.id}`)).status).toBe(404);
+  });
+
+  it('changing the client ends the former client\'s access and keeps the mill\'s', async () => {
+    const designer = await as('designer');
+    const client = await as('client');
+    const mill = await as('mill');
+    const orgs = (await designer.get('/api/organisations')).json.organisations as { id: string; name: string }[];
+    const byName = (name: string) => orgs.find((o) => o.name === name)!.id;
+    const created = (await designer.post('/api/styles', { ...newStyleBody(), clientId: byName('Varrow Sport') })).json.style;
+    expect((await designer.post(`/api/styles/${created.id}/shares`, { organisationId: byName('Quellmoor Knitworks') })).status).toBe(201);
+    expect((await client.get(`/api/styles/${created.id}`)).status).toBe(200);
+
+    const moved = await designer.patch(`/api/styles/${created.id}`, { version: created.version, clientId: byName('Kestenholm Outdoor') });
+    expect(moved.status).toBe(200);
+    expect(moved.json.style.shares.map((s: { name: string }) => s.name).sort()).toEqual(['Kestenholm Outdoor', 'Quellmoor Knitworks']);
+    expect((await client.get(`/api/styles/${created.id}`)).status).toBe(404);
+    expect((await client.get('/api/styles')).json.styles.map((s: { id: string }) => s.id)).not.toContain(created.id);
+    expect((await mill.get(`/api/styles/${created.id}`)).status).toBe(200);
+    const hist = (await designer.get(`/api/styles/${created.id}/history`)).json.entries;
+    const unshare = hist.find((e: { action: string }) => e.action === 'style.unshare');
+    expect(unshare?.details).toMatchObject({ organisation: 'Varrow Sport', reason: 'client changed' });
+    expect(hist.find((e: { action: string }) => e.action === 'style.update')?.details).toEqual({
+      client: { from: 'Varrow Sport', to: 'Kestenholm Outdoor' },
+    });
   });
 });

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
 import { launch, signIn } from './browser';
-import { accounts, as, baseUrl } from '../api/helpers';
+import { accounts, as, baseUrl, demoPassword, newStyleBody } from '../api/helpers';
 
 describe('styles in the browser', () => {
   let browser: Browser;
@@ -43,6 +43,38 @@ describe('styles in the browser', () => {
     await expect.poll(() => page.getByRole('alert').allTextContents()).toEqual(
       expect.arrayContaining([expect.stringMatching(/Style code needs/), expect.stringMatching(/Name needs/)]),
     );
+  });
+
+  it('after signing in, a next that leads to another site is not followed', async () => {
+    for (const next of ['/\\evil.example/styles', '/\t/evil.example/styles', '//evil.example/styles']) {
+      const page = await (await browser.newContext()).newPage();
+      await page.goto(`${baseUrl()}/sign-in?next=${encodeURIComponent(next)}`);
+      await page.getByLabel('Email').fill(accounts.designer);
+      await page.getByLabel('Password').fill(demoPassword);
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await page.waitForURL(/\/styles$/);
+      expect(new URL(page.url()).origin).toBe(new URL(baseUrl()).origin);
+      await page.context().close();
+    }
+  });
+
+  it('a second save right after the first uses the version the first one answered, not a 409', async () => {
+    const style = (await (await as('designer')).post('/api/styles', newStyleBody())).json.style;
+    const page = await signIn(browser, accounts.designer);
+    // Hold back the page refresh the first save starts, so the form cannot learn the new version from it.
+    let held = 0;
+    await page.route(/[?&]_rsc=/, () => { held++; /* never answered */ });
+    await page.goto(`${baseUrl()}/styles/${style.id}`);
+    const form = page.locator('form', { has: page.getByRole('button', { name: 'Save changes' }) });
+    await form.getByLabel('Name', { exact: true }).fill('Saved once');
+    await form.getByRole('button', { name: 'Save changes' }).click();
+    await expect.poll(() => form.getByRole('status').allTextContents()).toEqual(['Saved.']);
+    await expect.poll(() => held).toBeGreaterThan(0);
+    await form.getByLabel('Name', { exact: true }).fill('Saved twice');
+    await form.getByRole('button', { name: 'Save changes' }).click();
+    await expect.poll(async () => (await (await as('designer')).get(`/api/styles/${style.id}`)).json.style.name).toBe('Saved twice');
+    expect(await form.getByRole('alert').allTextContents()).toEqual([]);
+    await page.context().close();
   });
 
   it('the mill sees only what was released to it', async () => {

@@ -3,7 +3,7 @@ import { NextResponse } from 'next/server';
 import { route, parseBody } from '@/lib/api/handler';
 import { authorize } from '@/lib/auth/authorize';
 import { insertMember, listMembers, findMember } from '@/lib/db/users';
-import { findOrganisation } from '@/lib/db/organisations';
+import { organisationForRole } from '@/lib/db/organisations';
 import { memberCreateSchema } from '@/lib/validations/auth';
 import { HttpError } from '@/lib/api/errors';
 import { writeAudit } from '@/lib/db/audit';
@@ -16,13 +16,11 @@ export const GET = route(async () => {
 export const POST = route(async (req) => {
   const user = await authorize('members:manage');
   const input = await parseBody(req, memberCreateSchema);
-  if (input.organisationId && !(await findOrganisation(user.studioId, input.organisationId))) {
-    throw new HttpError(400, 'Some fields need attention.', { fieldErrors: { organisationId: ['Unknown organisation'] } });
-  }
+  const organisationId = await organisationForRole(user.studioId, input.role, input.organisationId);
   const passwordHash = await bcrypt.hash(input.password, 10);
   let id: string;
   try {
-    id = await insertMember(user.studioId, { ...input, organisationId: input.role === 'client' || input.role === 'mill' ? input.organisationId : null, passwordHash });
+    id = await insertMember(user.studioId, { ...input, organisationId, passwordHash });
   } catch (err) {
     if ((err as { code?: string }).code === '23505') {
       throw new HttpError(400, 'Some fields need attention.', { fieldErrors: { email: ['An account with this e-mail exists'] } });

@@ -4,7 +4,7 @@ import { route, parseBody } from '@/lib/api/handler';
 import { authorizeSession } from '@/lib/auth/authorize';
 import { passwordChangeSchema } from '@/lib/validations/auth';
 import { changePassword, findPasswordHash } from '@/lib/db/users';
-import { recordSignInFailure, signInBlockedFor } from '@/lib/db/sign-in-attempts';
+import { reserveSignInAttempt, signInSucceeded } from '@/lib/db/sign-in-attempts';
 import { writeAudit } from '@/lib/db/audit';
 import { clientAddress } from '@/lib/api/client-address';
 import { HttpError } from '@/lib/api/errors';
@@ -14,8 +14,8 @@ export const POST = route(async (req) => {
   const { user, sessionId } = await authorizeSession();
   const { currentPassword, newPassword } = await parseBody(req, passwordChangeSchema);
   // A wrong current password counts as a failed sign-in, so a taken-over session cannot guess it freely.
-  const address = clientAddress(req);
-  const wait = await signInBlockedFor(user.email, address);
+  const attempt = await reserveSignInAttempt(user.email, clientAddress(req));
+  const wait = attempt.waitSeconds;
   if (wait > 0) {
     return NextResponse.json(
       { error: `Too many wrong passwords. Try again in ${Math.ceil(wait / 60)} minutes.` },
@@ -24,9 +24,9 @@ export const POST = route(async (req) => {
   }
   const hash = await findPasswordHash(user.id);
   if (!hash || !(await bcrypt.compare(currentPassword, hash))) {
-    await recordSignInFailure(user.email, address);
     throw new HttpError(400, 'Some fields need attention.', { fieldErrors: { currentPassword: ['This is not your current password'] } });
   }
+  await signInSucceeded(attempt);
   const endedSessions = await changePassword(user.id, await bcrypt.hash(newPassword, 10), sessionId);
   await writeAudit({ studioId: user.studioId, userId: user.id, action: 'member.password', details: { email: user.email, endedSessions } });
   return NextResponse.json({ ok: true, endedSessions });
