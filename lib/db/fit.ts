@@ -180,6 +180,18 @@ function defaultTextures(textures: readonly FitTexture[]) {
   };
 }
 
+/**
+ * The base size's value of every point of measure in the style's saved size spec, cm (graded and
+ * overridden as the Fit section shows them); null when no spec is saved.
+ */
+export async function baseSizePointsCm(style: Style, q: Db = db()): Promise<Partial<Record<PointKey, number | null>> | null> {
+  const stored = await loadSpec(style.id, style.sizes.labels, q);
+  if (!stored) return null;
+  const base = style.sizes.labels.includes(stored.baseSize) ? stored.baseSize : style.sizes.base;
+  const values = resolveValues(pointsForGarment(stored, style.garmentType), style.sizes.labels, base);
+  return Object.fromEntries(Object.entries(values).map(([point, bySize]) => [point, bySize?.[base] ?? null]));
+}
+
 /** The spec the style has, or its defaults; points in the garment's order; the base size one of the style's sizes. */
 function effectiveSpec(style: Style, stored: SizeSpec | null, textures: readonly FitTexture[]): SizeSpec {
   const diameter = style.machine.kind === 'circular' ? style.machine.diameterIn : undefined;

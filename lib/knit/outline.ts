@@ -22,6 +22,8 @@ export interface OutlineMeasurements {
   armholeDepthCm: number;
   /** Across shoulder, point to point (tops). */
   acrossShoulderCm: number;
+  /** Chest half-width, flat across (tops): the width of a fashioned body panel. */
+  chestHalfCm: number;
   /** Neck width, seam to seam (tops). */
   neckWidthCm: number;
   frontNeckDropCm: number;
@@ -45,17 +47,55 @@ export interface OutlineMeasurements {
  */
 export function defaultMeasurements(garment: GarmentKind): OutlineMeasurements {
   const top: OutlineMeasurements = {
-    lengthCm: 60, armholeDepthCm: 19, acrossShoulderCm: 36, neckWidthCm: 17, frontNeckDropCm: 8, backNeckDropCm: 2,
+    lengthCm: 60, armholeDepthCm: 19, acrossShoulderCm: 36, chestHalfCm: 50, neckWidthCm: 17, frontNeckDropCm: 8, backNeckDropCm: 2,
     shoulderSlopeCm: 4, sleeveLengthCm: 60, bicepHalfCm: 13, cuffHalfCm: 8, riseCm: 0, thighHalfCm: 0, legOpeningHalfCm: 0,
   };
   switch (garment) {
     case 'long-sleeve-top': return top;
     case 'short-sleeve-top': return { ...top, sleeveLengthCm: 18, cuffHalfCm: 12 };
-    case 'tank': return { ...top, lengthCm: 58, armholeDepthCm: 22, acrossShoulderCm: 28, neckWidthCm: 20, frontNeckDropCm: 12, sleeveLengthCm: 0 };
-    case 'sports-bra': return { ...top, lengthCm: 32, armholeDepthCm: 17, acrossShoulderCm: 24, neckWidthCm: 18, frontNeckDropCm: 14, backNeckDropCm: 10, sleeveLengthCm: 0 };
+    case 'tank': return { ...top, lengthCm: 58, armholeDepthCm: 22, acrossShoulderCm: 28, chestHalfCm: 42, neckWidthCm: 20, frontNeckDropCm: 12, sleeveLengthCm: 0 };
+    case 'sports-bra': return { ...top, lengthCm: 32, armholeDepthCm: 17, acrossShoulderCm: 24, chestHalfCm: 38, neckWidthCm: 18, frontNeckDropCm: 14, backNeckDropCm: 10, sleeveLengthCm: 0 };
     case 'legging': return { ...top, lengthCm: 90, riseCm: 26, thighHalfCm: 24, legOpeningHalfCm: 10, sleeveLengthCm: 0 };
     case 'shorts': return { ...top, lengthCm: 40, riseCm: 26, thighHalfCm: 25, legOpeningHalfCm: 24, sleeveLengthCm: 0 };
   }
+}
+
+/** The points of measure of a size spec that shape the outline (the Fit section's keys), cm. */
+export type OutlinePointsCm = Partial<Record<'chest-half' | 'body-length-hps' | 'sleeve-length' | 'across-shoulder' | 'armhole' | 'thigh-half' | 'ankle-half' | 'inseam' | 'rise', number | null>>;
+
+/**
+ * The outline measurements of a garment from its base size's points of measure, each missing (or
+ * non-positive) value taken from `defaultMeasurements`. The straight armhole runs from the shoulder
+ * point to the underarm, so its depth is the vertical leg of that diagonal (Pythagoras; the
+ * horizontal leg is half the difference of chest half-width and across shoulder). Bottoms: the
+ * outseam is inseam + rise. Common practice for reading a spec sheet, no published source.
+ */
+export function outlineMeasurementsFromSpec(garment: GarmentKind, pointsCm: OutlinePointsCm): OutlineMeasurements {
+  const d = defaultMeasurements(garment);
+  const v = (key: keyof OutlinePointsCm): number | undefined => {
+    const x = pointsCm[key];
+    return typeof x === 'number' && Number.isFinite(x) && x > 0 ? x : undefined;
+  };
+  const m: OutlineMeasurements = { ...d };
+  if (garment === 'legging' || garment === 'shorts') {
+    m.riseCm = v('rise') ?? d.riseCm;
+    const inseam = v('inseam');
+    if (inseam !== undefined) m.lengthCm = inseam + m.riseCm;
+    m.thighHalfCm = v('thigh-half') ?? d.thighHalfCm;
+    if (garment === 'legging') m.legOpeningHalfCm = v('ankle-half') ?? d.legOpeningHalfCm;
+    m.legOpeningHalfCm = Math.min(m.legOpeningHalfCm, m.thighHalfCm);
+    return m;
+  }
+  m.lengthCm = v('body-length-hps') ?? d.lengthCm;
+  m.acrossShoulderCm = v('across-shoulder') ?? d.acrossShoulderCm;
+  m.chestHalfCm = v('chest-half') ?? d.chestHalfCm;
+  if (d.sleeveLengthCm > 0) m.sleeveLengthCm = v('sleeve-length') ?? d.sleeveLengthCm;
+  const straight = v('armhole');
+  if (straight !== undefined) {
+    const across = Math.max(m.chestHalfCm - m.acrossShoulderCm, 0) / 2;
+    m.armholeDepthCm = straight > across ? Math.sqrt(straight * straight - across * across) : straight;
+  }
+  return m;
 }
 
 export interface PanelGenerationInput {
@@ -201,7 +241,7 @@ export function generatePanels(input: PanelGenerationInput): Panel[] {
   }
 
   const bodyW = flat
-    ? Math.min(input.machineNeedles, round((m.acrossShoulderCm + 14) * d.walesPerCm))
+    ? Math.min(input.machineNeedles, round(Math.max(m.chestHalfCm, m.acrossShoulderCm) * d.walesPerCm))
     : round(input.machineNeedles / 2);
   const bodyH = round(m.lengthCm * d.coursesPerCm);
   panels.push(make('front', 'Front', bodyW, bodyH, topOutline(bodyW, bodyH, m, d, true), flat));

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { generatePanels, defaultMeasurements, type GarmentKind } from '@/lib/knit/outline';
+import { generatePanels, defaultMeasurements, outlineMeasurementsFromSpec, type GarmentKind } from '@/lib/knit/outline';
 import { isSimplePolygon, rasterizePanel } from '@/lib/knit/raster';
 
 const density = { walesPerCm: 18, coursesPerCm: 24 };
@@ -46,5 +46,41 @@ describe('generatePanels', () => {
       const kinds = generatePanels({ garment: g, construction: 'seamless', machineNeedles: 1232, density, baseTextureId: 't' }).map((p) => p.kind);
       expect(kinds.includes('sleeve-left')).toBe(defaultMeasurements(g).sleeveLengthCm > 0);
     }
+  });
+});
+
+describe('outlineMeasurementsFromSpec', () => {
+  it('a wider chest half-width gives a wider fashioned body panel in needles (panel width = chest half-width × wales per cm)', () => {
+    const narrow = outlineMeasurementsFromSpec('long-sleeve-top', { 'chest-half': 44 });
+    const wide = outlineMeasurementsFromSpec('long-sleeve-top', { 'chest-half': 52 });
+    const front = (m: typeof narrow) => generatePanels({ garment: 'long-sleeve-top', construction: 'flat', machineNeedles: 2000, density, measurements: m, baseTextureId: 't' })[0]!;
+    // 44 cm × 18 wales/cm = 792 needles; 52 cm × 18 = 936.
+    expect(front(narrow).widthNeedles).toBe(792);
+    expect(front(wide).widthNeedles).toBe(936);
+  });
+
+  it('takes each missing, empty or non-positive point from the defaults', () => {
+    const m = outlineMeasurementsFromSpec('long-sleeve-top', { 'body-length-hps': 66, 'sleeve-length': null, 'across-shoulder': 0 });
+    expect(m).toEqual({ ...defaultMeasurements('long-sleeve-top'), lengthCm: 66 });
+    expect(outlineMeasurementsFromSpec('tank', {})).toEqual(defaultMeasurements('tank'));
+  });
+
+  it('a longer body length gives more courses (60 → 66 cm at 24 courses/cm: 1440 → 1584)', () => {
+    const m = outlineMeasurementsFromSpec('long-sleeve-top', { 'body-length-hps': 66 });
+    const [front] = generatePanels({ garment: 'long-sleeve-top', construction: 'seamless', machineNeedles: 1232, density, measurements: m, baseTextureId: 't' });
+    expect(front!.heightCourses).toBe(1584);
+  });
+
+  it('reads the straight armhole as the diagonal from shoulder point to underarm (3-4-5 triangle)', () => {
+    // Chest half 44, across shoulder 36: the underarm sits 4 cm out; a 5 cm straight armhole is 3 cm deep.
+    expect(outlineMeasurementsFromSpec('long-sleeve-top', { 'chest-half': 44, 'across-shoulder': 36, armhole: 5 }).armholeDepthCm).toBeCloseTo(3, 9);
+  });
+
+  it('bottoms: the outseam is inseam + rise; thigh and ankle half-widths shape the leg', () => {
+    const m = outlineMeasurementsFromSpec('legging', { inseam: 70, rise: 24, 'thigh-half': 22, 'ankle-half': 9 });
+    expect(m.lengthCm).toBe(94);
+    expect(m.riseCm).toBe(24);
+    expect(m.thighHalfCm).toBe(22);
+    expect(m.legOpeningHalfCm).toBe(9);
   });
 });
