@@ -167,6 +167,7 @@ async function generatedMap(studioId: string, style: Style, q: Knex | Knex.Trans
     construction: style.construction,
     machineNeedles,
     density: base ?? fallbackDensity,
+    sleeveStyle: style.machine.sleeveStyle ?? 'set-in',
     ...(pointsCm ? { measurements: outlineMeasurementsFromSpec(style.garmentType, pointsCm) } : {}),
     baseTextureId: base?.id ?? '',
     newId: () => randomUUID(),

@@ -82,6 +82,22 @@ describe('body map API', () => {
     expect(flatNow.panels[0].widthNeedles).toBe(Math.round(44 * Number(flatTexture.wales_per_cm)));
   });
 
+  it('a style whose machine setup says raglan gets raglan outlines; an unknown sleeve style is a 400; existing styles stay set-in', async () => {
+    const designer = await as('designer');
+    const body = newStyleBody();
+    const raglan = await designer.post('/api/styles', { ...body, machine: { ...body.machine, sleeveStyle: 'raglan' } });
+    expect(raglan.status).toBe(201);
+    expect(raglan.json.style.machine.sleeveStyle).toBe('raglan');
+    const setIn = (await freshMap()).map;
+    const map = (await designer.get(`/api/styles/${raglan.json.style.id}/body-map`)).json;
+    const sleeve = map.panels.find((p: any) => p.kind === 'sleeve-left');
+    // A raglan sleeve top is two straight lines and a short top edge: six vertices with the cuff; the set-in cap is a curve.
+    expect(sleeve.cutOutline).toHaveLength(6);
+    expect(setIn.panels.find((p: any) => p.kind === 'sleeve-left').cutOutline.length).toBeGreaterThan(6);
+    const bad = await designer.post('/api/styles', { ...newStyleBody(), machine: { ...body.machine, sleeveStyle: 'puff' } });
+    expect(bad.status).toBe(400);
+  });
+
   it('PUT saves panels and zones at the current version; GET returns them; an audit entry is written', async () => {
     const { designer, style, map } = await freshMap();
     const panels = withZone(map);

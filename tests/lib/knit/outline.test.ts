@@ -84,3 +84,49 @@ describe('outlineMeasurementsFromSpec', () => {
     expect(m.legOpeningHalfCm).toBe(9);
   });
 });
+
+describe('raglan sleeves', () => {
+  const length = (a: { x: number; y: number }, b: { x: number; y: number }, d = density) => Math.hypot((b.x - a.x) / d.walesPerCm, (b.y - a.y) / d.coursesPerCm);
+
+  it.each([
+    ['seamless', 1232, density],
+    ['flat', 1000, density],
+    ['seamless', 1144, { walesPerCm: 13.5, coursesPerCm: 21 }],
+  ] as const)('%s (%i needles): the body raglan line and the sleeve raglan line are the same length within two courses', (construction, machineNeedles, d) => {
+    const [front, back, sleeve] = generatePanels({ garment: 'long-sleeve-top', construction, machineNeedles, density: d, sleeveStyle: 'raglan', baseTextureId: 't' });
+    // Body: the outline runs neck point → underarm (left edge) with nothing between: a straight line.
+    const body = (p: typeof front) => {
+      const o = p!.cutOutline;
+      const under = o.findIndex((v) => v.x === 0);
+      return length(o[under - 1]!, o[under]!, d);
+    };
+    expect(body(front)).toBeCloseTo(body(back), 9);
+    // Sleeve: top left → top right → underarm (right edge): the line from the top's corner to the underarm.
+    const s = sleeve!.cutOutline;
+    const sleeveLine = length(s[1]!, s[2]!, d);
+    expect(s[2]!.x).toBe(sleeve!.widthNeedles);
+    expect(Math.abs(sleeveLine - body(front))).toBeLessThanOrEqual(2 / d.coursesPerCm);
+    // Common practice, no published source: a raglan body has no shoulder seam or armhole curve, so fewer vertices above the underarm.
+    const setIn = generatePanels({ garment: 'long-sleeve-top', construction, machineNeedles, density: d, baseTextureId: 't' })[0]!;
+    const underarmY = front!.cutOutline.find((v) => v.x === 0)!.y;
+    expect(front!.cutOutline.filter((v) => v.y < underarmY).length).toBeLessThan(setIn.cutOutline.filter((v) => v.y < underarmY).length);
+    for (const p of [front!, back!, sleeve!]) expect(isSimplePolygon(p.cutOutline)).toBe(true);
+  });
+
+  it('a raglan changes the outlines only: the same panel sizes, another sleeve top', () => {
+    const raglan = generatePanels({ garment: 'long-sleeve-top', construction: 'seamless', machineNeedles: 1232, density, sleeveStyle: 'raglan', baseTextureId: 't' });
+    const setIn = generatePanels({ garment: 'long-sleeve-top', construction: 'seamless', machineNeedles: 1232, density, baseTextureId: 't' });
+    expect(raglan[0]!.widthNeedles).toBe(setIn[0]!.widthNeedles);
+    expect(raglan[0]!.heightCourses).toBe(setIn[0]!.heightCourses);
+    expect(raglan[2]!.cutOutline).not.toEqual(setIn[2]!.cutOutline);
+  });
+
+  it('garments without sleeves ignore the raglan choice; set-in is the default', () => {
+    for (const g of ['tank', 'sports-bra', 'legging'] as const) {
+      expect(generatePanels({ garment: g, construction: 'seamless', machineNeedles: 1232, density, sleeveStyle: 'raglan', baseTextureId: 't' }))
+        .toEqual(generatePanels({ garment: g, construction: 'seamless', machineNeedles: 1232, density, baseTextureId: 't' }));
+    }
+    expect(generatePanels({ garment: 'long-sleeve-top', construction: 'seamless', machineNeedles: 1232, density, sleeveStyle: 'set-in', baseTextureId: 't' }))
+      .toEqual(generatePanels({ garment: 'long-sleeve-top', construction: 'seamless', machineNeedles: 1232, density, baseTextureId: 't' }));
+  });
+});
