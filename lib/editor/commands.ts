@@ -341,26 +341,24 @@ export function snapZonesToRepeats(
   });
 }
 
-/** The document with one point of a panel's cut outline moved (inside the panel; refused if edges would cross). */
+/**
+ * The document with one point of a panel's cut outline moved (inside the panel; refused if edges
+ * would cross). A fashioned panel's knitted area follows, as in `replaceOutline`.
+ */
 export function moveOutlineVertex(doc: BodyMapDocument, panelId: string, index: number, point: StitchPoint): BodyMapDocument {
-  return updatePanel(doc, panelId, (panel) => {
-    if (index < 0 || index >= panel.cutOutline.length) return panel;
-    const p = clampPointToPanel(point, panel);
-    const old = panel.cutOutline[index]!;
-    if (old.x === p.x && old.y === p.y) return panel;
-    const cutOutline = panel.cutOutline.slice();
-    cutOutline[index] = p;
-    return isSimplePolygon(cutOutline) ? { ...panel, cutOutline } : panel;
-  });
+  const panel = findPanel(doc, panelId);
+  if (!panel || index < 0 || index >= panel.cutOutline.length) return doc;
+  const cutOutline = panel.cutOutline.slice();
+  cutOutline[index] = point;
+  return replaceOutline(doc, panelId, cutOutline);
 }
 
-/** The document with a panel's cut outline replaced wholesale (from an outline drag that started at `outline`). */
+/**
+ * The document with a panel's cut outline replaced wholesale (from an outline drag that started at
+ * `outline`). A fashioned panel's knitted area follows, as in `replaceOutline`.
+ */
 export function setCutOutline(doc: BodyMapDocument, panelId: string, outline: StitchPolygon): BodyMapDocument {
-  return updatePanel(doc, panelId, (panel) => {
-    const clamped = clampPolygonToPanel(outline, panel);
-    if (!isSimplePolygon(clamped) || samePolygon(clamped, panel.cutOutline)) return panel;
-    return { ...panel, cutOutline: clamped };
-  });
+  return replaceOutline(doc, panelId, outline);
 }
 
 /**

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { TestEditor, bodyDocument, bodyPanel, rectZone } from './test-editor';
+import { moveOutlineVertex, setCutOutline } from '@/lib/editor/commands';
 
 function setup() {
   return new TestEditor({
@@ -314,5 +315,23 @@ describe('replace outline', () => {
     expect(t.state.doc.panels[0]!.cutOutline).toEqual(before);
     // A crossing outline is refused.
     expect(t.editor.replaceOutline(panelId, [{ x: 0, y: 0 }, { x: 100, y: 100 }, { x: 100, y: 0 }, { x: 0, y: 100 }])).toBe(false);
+  });
+});
+
+describe('moving a cut-line point', () => {
+  it('moveOutlineVertex and setCutOutline carry a fashioned panel\'s knitted area with the cut lines', () => {
+    const doc = bodyDocument();
+    const front = doc.panels[0]!;
+    const fashioned = { ...doc, panels: [{ ...front, knittedArea: front.cutOutline }, doc.panels[1]!] };
+    const moved = moveOutlineVertex(fashioned, 'front', 1, { x: 70, y: 12 });
+    expect(moved.panels[0]!.cutOutline[1]).toEqual({ x: 70, y: 12 });
+    expect(moved.panels[0]!.knittedArea).toEqual(moved.panels[0]!.cutOutline);
+    const outline = front.cutOutline.map((p, i) => (i === 2 ? { x: 150, y: 8 } : p));
+    const set = setCutOutline(fashioned, 'front', outline);
+    expect(set.panels[0]!.knittedArea).toEqual(outline);
+    // A crossing move changes nothing.
+    expect(moveOutlineVertex(fashioned, 'front', 4, { x: 0, y: 0 })).toBe(fashioned);
+    // A tube keeps its rectangle.
+    expect(moveOutlineVertex(doc, 'front', 1, { x: 70, y: 12 }).panels[0]!.knittedArea).toEqual(front.knittedArea);
   });
 });
