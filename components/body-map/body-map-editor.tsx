@@ -101,9 +101,12 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, read
       if (used) e.preventDefault();
     };
     const up = (e: KeyboardEvent) => { editor.keyUp({ key: e.key }); };
+    // Space let go while the window was in the background never sends its keyup.
+    const blur = () => editor.holdSpace(false);
     window.addEventListener('keydown', down);
     window.addEventListener('keyup', up);
-    return () => { window.removeEventListener('keydown', down); window.removeEventListener('keyup', up); };
+    window.addEventListener('blur', blur);
+    return () => { window.removeEventListener('keydown', down); window.removeEventListener('keyup', up); window.removeEventListener('blur', blur); };
   }, [editor]);
 
   const onFinding = (f: RuleFinding) => {

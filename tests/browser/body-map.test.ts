@@ -24,6 +24,12 @@ async function drawZone(page: Page, pts: [number, number][]) {
   await page.keyboard.press('Enter');
 }
 
+async function nameSelectedZone(page: Page, name: string) {
+  await page.getByLabel('Selected zone').waitFor();
+  await page.getByLabel('Name', { exact: true }).fill(name);
+  await page.getByLabel('Name', { exact: true }).press('Enter');
+}
+
 async function savedState(page: Page) {
   return page.getByTestId('save-state').getAttribute('data-state');
 }
@@ -82,16 +88,42 @@ describe('body map in the browser', () => {
 
     await a.bringToFront();
     await drawZone(a, [[0.5, 0.2], [0.8, 0.2], [0.8, 0.3]]);
+    await nameSelectedZone(a, 'Saved in tab A');
     await expect.poll(() => savedState(a), { timeout: 10_000 }).toBe('saved');
 
     await b.bringToFront();
     await drawZone(b, [[0.5, 0.8], [0.8, 0.8], [0.8, 0.9]]);
+    await nameSelectedZone(b, 'Unsaved in tab B');
     await expect.poll(() => savedState(b), { timeout: 10_000 }).toBe('conflict');
     expect(await b.getByRole('button', { name: 'Reload latest' }).count()).toBe(1);
-    // Reloading brings in the other tab's zone.
-    const zonesBefore = await b.getByLabel('Zones').locator('li').count();
+    const zone = (page: Page, name: string) => page.getByLabel('Zones').getByRole('button', { name: new RegExp(`^${name}`) });
+    expect(await zone(b, 'Unsaved in tab B').count()).toBe(1);
+    expect(await zone(b, 'Saved in tab A').count()).toBe(0);
+    // Reloading brings in the other tab's zone and drops this tab's unsaved one.
     await b.getByRole('button', { name: 'Reload latest' }).click();
     await expect.poll(() => savedState(b)).toBe('saved');
-    expect(await b.getByLabel('Zones').locator('li').count()).toBe(zonesBefore);
+    await expect.poll(() => zone(b, 'Saved in tab A').count()).toBe(1);
+    expect(await zone(b, 'Unsaved in tab B').count()).toBe(0);
+  });
+
+  it('a cut-line drag released off the canvas ends there, and the map saves', { timeout: 90_000 }, async () => {
+    const designer = await as('designer');
+    const id = (await designer.post('/api/styles', { ...newStyleBody(), name: 'Body-map drag-off test' })).json.style.id;
+    const page = await signIn(browser, accounts.designer);
+    await page.goto(`${baseUrl()}/styles/${id}/body-map`);
+    const { box, panels: ps } = await panels(page);
+    const front = ps[0]!;
+    const canvas = (await page.getByTestId('body-map-canvas').boundingBox())!;
+    await page.keyboard.press('l');
+    // The knitted tube's bottom-left corner is a point of the cut outline.
+    await page.mouse.move(box.x + front.x, box.y + front.y + front.h);
+    await page.mouse.down();
+    await page.mouse.move(box.x + front.x + front.w * 0.1, box.y + front.y + front.h * 0.95, { steps: 4 });
+    // Out past the canvas's right edge, over the side panel, and let go there.
+    await page.mouse.move(canvas.x + canvas.width + 40, canvas.y + canvas.height / 2, { steps: 4 });
+    await page.mouse.up();
+    // The gesture ended, so autosave ran: the map is stored now (before, the drag stayed live and nothing saved).
+    await expect.poll(async () => (await designer.get(`/api/styles/${id}/body-map`)).json.generated, { timeout: 15_000 }).toBe(false);
+    await expect.poll(() => savedState(page)).toBe('saved');
   });
 });
