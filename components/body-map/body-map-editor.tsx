@@ -2,7 +2,7 @@
 
 import dynamic from 'next/dynamic';
 import { useEffect, useMemo, useState, useSyncExternalStore } from 'react';
-import { Editor, type TextureLookup } from '@/lib/editor';
+import { Editor, findPanel, findZone, polygonBounds, type TextureLookup } from '@/lib/editor';
 import type { Panel } from '@/lib/knit/panel';
 import type { Texture } from '@/lib/knit/texture';
 import type { Yarn } from '@/lib/knit/yarn';
@@ -111,6 +111,16 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, read
 
   const onFinding = (f: RuleFinding) => {
     if (f.where.zoneId) editor.select([f.where.zoneId]);
+    const doc = editor.getState().doc;
+    const panel = f.where.panelId ? findPanel(doc, f.where.panelId) : null;
+    if (panel) {
+      // The finding's stitch, else its zone, else the whole panel.
+      const zone = f.where.zoneId ? findZone(doc, f.where.zoneId) : null;
+      const place = f.where.needle !== undefined || f.where.course !== undefined
+        ? { x: f.where.needle ?? panel.widthNeedles / 2, y: f.where.course ?? panel.heightCourses / 2 }
+        : zone ? polygonBounds(zone.zone.polygon) : { minX: 0, minY: 0, maxX: panel.widthNeedles, maxY: panel.heightCourses };
+      editor.centreOn(panel.id, place);
+    }
     if (f.where.panelId) {
       setHighlight({ panelId: f.where.panelId, needle: f.where.needle, course: f.where.course });
       setTimeout(() => setHighlight(null), 2500);

@@ -6,6 +6,7 @@
  */
 import type { StitchPolygon, Panel, ScreenPoint, StitchPoint, ZoneFunction } from '@/lib/knit/panel';
 import {
+  centreOn,
   fitCamera,
   layoutOf,
   panCamera,
@@ -18,6 +19,7 @@ import {
   type PanelLayout,
 } from './camera';
 import * as cmd from './commands';
+import type { StitchBounds } from './geometry';
 import { allZoneIds, findPanel, findZone } from './document';
 import * as hist from './history';
 import { bindShortcuts, comboOfKey, defaultShortcuts, type Shortcut } from './shortcuts';
@@ -470,6 +472,11 @@ export class Editor {
       const s = this.current;
       this.set({ camera: fitCamera(s.doc.panels, s.textures, s.panelGapCm, s.viewport) });
     });
+  }
+
+  /** Bring a place on a panel (a stitch point or box) into view, centred; zooms out only if it would not fit. Not recorded in history. */
+  centreOn(panelId: string, place: StitchPoint | StitchBounds): void {
+    this.batch(() => this.set({ camera: centreOn(this.current, panelId, place) }));
   }
 
   /** Show fabric at true size on a 96 px/in screen, about the middle of the viewport. */
