@@ -12,7 +12,7 @@ import { runRules, type RuleFinding } from '@/lib/rules';
 import { flatColourForTexture, flatColoursForTextures } from '@/lib/knit/render';
 import { useAutosave } from './use-autosave';
 import { Toolbar } from './toolbar';
-import { SaveState } from './save-state';
+import { RestoreOffer, SaveState } from './save-state';
 import { ZonePanel } from './zone-panel';
 import { SummaryPanel } from './summary-panel';
 import { HelpPanel } from './help-panel';
@@ -59,7 +59,7 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, read
       }),
   );
   const state = useSyncExternalStore(editor.subscribe, editor.getState, editor.getState);
-  const { status, reloadLatest, keepCopy, overwrite } = useAutosave(editor, state, styleId);
+  const { status, reloadLatest, keepCopy, overwrite, backupOffer, restoreBackup, discardBackup } = useAutosave(editor, state, styleId);
   const [fill, setFill] = useState<'texture' | 'flat'>('texture');
   const [rulerUnit, setRulerUnit] = useState<RulerUnit>('stitches');
   const [highlight, setHighlight] = useState<{ panelId: string; needle?: number; course?: number } | null>(null);
@@ -143,6 +143,7 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, read
           <BodyMapCanvas editor={editor} state={state} textures={textureMap} yarns={yarns} fill={fill} rulerUnit={rulerUnit} highlight={highlight} colourOf={colourOf} trims={trims} />
           {state.helpOpen ? <HelpPanel editor={editor} /> : null}
           <div className="absolute bottom-3 right-3 z-10 max-w-[90%] rounded-md border border-rule bg-panel/95 shadow-sm">
+            {backupOffer ? <RestoreOffer savedAt={backupOffer.savedAt} onRestore={restoreBackup} onDiscard={discardBackup} /> : null}
             <SaveState status={status} onReload={reloadLatest} onKeepCopy={keepCopy} onOverwrite={overwrite} />
           </div>
         </div>

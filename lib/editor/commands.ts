@@ -374,6 +374,21 @@ export function replaceOutline(doc: BodyMapDocument, panelId: string, outline: S
   });
 }
 
+/**
+ * The document with its panels replaced by `panels` (a local copy of unsaved work), matched by
+ * position: each keeps the id of the panel in its place, so a copy taken from generated panels
+ * (fresh ids on every load) lands on the ones loaded now. Null when the count or the kinds of the
+ * panels differ; the same document when nothing would change.
+ */
+export function restorePanels(doc: BodyMapDocument, panels: readonly Panel[]): BodyMapDocument | null {
+  if (panels.length !== doc.panels.length || panels.some((p, i) => p.kind !== doc.panels[i]!.kind)) return null;
+  const next = doc.panels.map((current, i) => {
+    const copy = { ...panels[i]!, id: current.id };
+    return JSON.stringify(copy) === JSON.stringify(current) ? current : copy;
+  });
+  return next.every((p, i) => p === doc.panels[i]) ? doc : { ...doc, panels: next };
+}
+
 /** Whether the document has a panel with this id (guards commands coming from the view). */
 export function hasPanel(doc: BodyMapDocument, panelId: string): boolean {
   return findPanel(doc, panelId) !== null;

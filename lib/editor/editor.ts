@@ -743,6 +743,14 @@ export class Editor {
     });
   }
 
+  /**
+   * Put a local copy of unsaved work in place of the panels, as one undoable edit (see
+   * `commands.restorePanels`). False when the panels do not match or nothing changed.
+   */
+  restorePanels(panels: readonly Panel[]): boolean {
+    return this.batch(() => this.change('Restore unsaved work', (doc) => cmd.restorePanels(doc, panels) ?? doc));
+  }
+
   /** Replace the document (first load, or reload after a conflict): history cleared, clean. */
   loadDocument(doc: BodyMapDocument): void {
     this.batch(() => {

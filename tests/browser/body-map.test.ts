@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { randomUUID } from 'node:crypto';
 import type { Browser, Page } from 'playwright-core';
 import { launch, signIn } from './browser';
 import { accounts, baseUrl, newStyleBody, as } from '../api/helpers';
@@ -125,5 +126,26 @@ describe('body map in the browser', () => {
     // The gesture ended, so autosave ran: the map is stored now (before, the drag stayed live and nothing saved).
     await expect.poll(async () => (await designer.get(`/api/styles/${id}/body-map`)).json.generated, { timeout: 15_000 }).toBe(false);
     await expect.poll(() => savedState(page)).toBe('saved');
+  });
+
+  it('offers work kept in this browser back on opening; restoring it puts it in the map and saves it', { timeout: 90_000 }, async () => {
+    const designer = await as('designer');
+    const id = (await designer.post('/api/styles', { ...newStyleBody(), name: 'Body-map restore test' })).json.style.id;
+    const map = (await designer.get(`/api/styles/${id}/body-map`)).json;
+    const panels = structuredClone(map.panels);
+    panels[0].zones.push({
+      id: randomUUID(), name: 'Kept in the browser', textureId: panels[0].baseTextureId, fn: 'compression', order: 1,
+      polygon: [{ x: 10, y: 100 }, { x: 120, y: 100 }, { x: 120, y: 600 }, { x: 10, y: 600 }],
+    });
+    const page = await signIn(browser, accounts.designer);
+    await page.goto(`${baseUrl()}/styles/${id}/body-map`);
+    await page.getByTestId('body-map-canvas').waitFor();
+    await page.evaluate(([key, value]) => window.localStorage.setItem(key!, value!), [`needlemap:body-map-backup:${id}`, JSON.stringify({ savedAt: Date.now(), version: map.version, panels })]);
+    await page.reload();
+    await page.getByRole('button', { name: 'Restore unsaved work' }).click();
+    await expect.poll(() => page.getByLabel('Zones').getByRole('button', { name: /^Kept in the browser/ }).count()).toBe(1);
+    await expect.poll(async () => (await designer.get(`/api/styles/${id}/body-map`)).json.panels[0].zones.map((z: { name: string }) => z.name), { timeout: 15_000 })
+      .toEqual(['Kept in the browser']);
+    expect(await page.getByTestId('restore-offer').count()).toBe(0);
   });
 });
