@@ -8,6 +8,9 @@ import type { Texture } from '@/lib/knit/texture';
 import type { Yarn } from '@/lib/knit/yarn';
 import type { LibraryTexture } from '@/lib/db/textures';
 import { summariseBodyMap, type BodyMapSummary } from '@/lib/knit/summary';
+import { consumptionBySize, type GarmentConsumption } from '@/lib/knit/consumption';
+import type { GarmentKind } from '@/lib/knit/outline';
+import { defaultWasteAllowance, gradedSizeStitches, type GradedPoints, type SizeBasis } from '@/lib/knit/yarn-calculator';
 import { runRules, type RuleFinding } from '@/lib/rules';
 import { flatColourForTexture, flatColoursForTextures } from '@/lib/knit/render';
 import { useAutosave } from './use-autosave';
@@ -33,6 +36,10 @@ export interface BodyMapEditorProps {
   machine: { construction: 'seamless' | 'flat'; gauge: number; maxYarns: number };
   readOnly: boolean;
   baseSize: string;
+  /** The style's sizes, in order, the garment, and the graded size spec (null when none is saved): grams per size. */
+  sizes: readonly string[];
+  garment: GarmentKind;
+  graded: GradedPoints | null;
   /** The style's trims to show over the map, by panel id. */
   trims?: readonly { id: string; panelId: string; box: { x: number; y: number; width: number; height: number }; label: string }[];
 }
@@ -48,7 +55,7 @@ function textureLookup(textures: readonly Texture[]): TextureLookup {
   return out;
 }
 
-export function BodyMapEditor({ styleId, initial, textures, yarns, machine, readOnly, baseSize, trims }: BodyMapEditorProps) {
+export function BodyMapEditor({ styleId, initial, textures, yarns, machine, readOnly, baseSize, sizes, garment, graded, trims }: BodyMapEditorProps) {
   const [editor] = useState(
     () =>
       new Editor({
@@ -82,6 +89,14 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, read
     lastSummary.set(editor, { panels: state.doc.panels, summary: s });
     return s;
   }, [state.doc.panels, textureMap, yarns, machine.gauge, editor]);
+  // Grams for the size picked in the summary: the drawn base size, or its stitches graded as the yarn calculator grades them.
+  const [size, setSize] = useState(baseSize);
+  const sizeGrams = useMemo((): { basis: SizeBasis; consumption: GarmentConsumption | null } => {
+    if (size === baseSize || !summary.consumption) return { basis: 'drawn', consumption: summary.consumption };
+    const g = gradedSizeStitches({ garment, panels: state.doc.panels, rasters: summary.rasters, baseSize, size, graded });
+    if (g.basis !== 'graded' || !g.panels) return { basis: 'base-grams', consumption: summary.consumption };
+    return { basis: 'graded', consumption: consumptionBySize({ sizes: [{ size, panels: g.panels }], textures: textureMap, yarns, gauge: machine.gauge, wasteAllowance: defaultWasteAllowance })[size] ?? null };
+  }, [size, baseSize, summary, garment, state.doc.panels, graded, textureMap, yarns, machine.gauge]);
   const findings: RuleFinding[] = useMemo(() => {
     try {
       return runRules({ panels: state.doc.panels, textures: textureMap, yarns, machine, rasters: summary.rasters });
@@ -150,7 +165,8 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, read
       </div>
       <aside className="flex min-h-0 flex-col gap-4 overflow-y-auto pr-1">
         <ZonePanel editor={editor} state={state} textures={textures} summary={summary} colourOf={colourOf} styleId={styleId} />
-        <SummaryPanel summary={summary} findings={findings} textures={textureMap} yarns={yarns} onFinding={onFinding} baseSize={baseSize} colourOf={colourOf} />
+        <SummaryPanel summary={summary} findings={findings} textures={textureMap} yarns={yarns} onFinding={onFinding} baseSize={baseSize} colourOf={colourOf}
+          sizes={sizes} size={size} onSize={setSize} sizeGrams={sizeGrams} />
       </aside>
     </div>
   );

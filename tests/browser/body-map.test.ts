@@ -64,6 +64,12 @@ describe('body map in the browser', () => {
     await expect.poll(() => page.getByTestId('texture-totals').textContent()).not.toBe(totalsBefore);
     expect(await page.getByTestId('texture-totals').textContent()).toContain(pick);
     await expect.poll(() => savedState(page), { timeout: 10_000 }).toBe('saved');
+    // The cut-away area stands beside the kept one.
+    expect(await page.getByTestId('texture-totals').locator('thead').textContent()).toContain('cut away');
+    // Another size: this style has no size spec yet, so it says it shows the base size's grams.
+    await page.getByLabel('Size for the yarn grams').selectOption('S');
+    expect(await page.getByTestId('yarn-grams').getAttribute('data-size')).toBe('S');
+    expect(await page.getByTestId('size-basis').textContent()).toMatch(/No graded size spec for S/);
 
     await page.reload();
     await page.getByTestId('body-map-canvas').waitFor();
