@@ -11,7 +11,7 @@ import { summariseBodyMap, type BodyMapSummary } from '@/lib/knit/summary';
 import { consumptionBySize, type GarmentConsumption } from '@/lib/knit/consumption';
 import type { GarmentKind } from '@/lib/knit/outline';
 import { defaultWasteAllowance, gradedSizeStitches, type GradedPoints, type SizeBasis } from '@/lib/knit/yarn-calculator';
-import { runRules, type RuleFinding } from '@/lib/rules';
+import { runRules, type RuleFinding, type StudioRuleLimits } from '@/lib/rules';
 import { flatColourForTexture, flatColoursForTextures } from '@/lib/knit/render';
 import { useAutosave } from './use-autosave';
 import { Toolbar } from './toolbar';
@@ -34,6 +34,8 @@ export interface BodyMapEditorProps {
   textures: LibraryTexture[];
   yarns: Yarn[];
   machine: { construction: 'seamless' | 'flat'; gauge: number; maxYarns: number };
+  /** The studio's float and tuck limits for the rules, with where each comes from. */
+  ruleLimits: StudioRuleLimits;
   readOnly: boolean;
   baseSize: string;
   /** The style's sizes, in order, the garment, and the graded size spec (null when none is saved): grams per size. */
@@ -55,7 +57,7 @@ function textureLookup(textures: readonly Texture[]): TextureLookup {
   return out;
 }
 
-export function BodyMapEditor({ styleId, initial, textures, yarns, machine, readOnly, baseSize, sizes, garment, graded, trims }: BodyMapEditorProps) {
+export function BodyMapEditor({ styleId, initial, textures, yarns, machine, ruleLimits, readOnly, baseSize, sizes, garment, graded, trims }: BodyMapEditorProps) {
   const [editor] = useState(
     () =>
       new Editor({
@@ -99,11 +101,11 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, read
   }, [size, baseSize, summary, garment, state.doc.panels, graded, textureMap, yarns, machine.gauge]);
   const findings: RuleFinding[] = useMemo(() => {
     try {
-      return runRules({ panels: state.doc.panels, textures: textureMap, yarns, machine, rasters: summary.rasters });
+      return runRules({ panels: state.doc.panels, textures: textureMap, yarns, machine, limits: ruleLimits.limits, rasters: summary.rasters });
     } catch (err) {
       return [{ rule: 'unknown-texture', severity: 'error', message: err instanceof Error ? err.message : String(err), where: {} } as RuleFinding];
     }
-  }, [state.doc.panels, textureMap, yarns, machine, summary]);
+  }, [state.doc.panels, textureMap, yarns, machine, ruleLimits, summary]);
 
   // Keyboard: shortcuts are data in the editor; off while a text field has focus.
   useEffect(() => {
@@ -165,7 +167,7 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, read
       </div>
       <aside className="flex min-h-0 flex-col gap-4 overflow-y-auto pr-1">
         <ZonePanel editor={editor} state={state} textures={textures} summary={summary} colourOf={colourOf} styleId={styleId} />
-        <SummaryPanel summary={summary} findings={findings} textures={textureMap} yarns={yarns} onFinding={onFinding} baseSize={baseSize} colourOf={colourOf}
+        <SummaryPanel summary={summary} findings={findings} ruleLimits={ruleLimits} textures={textureMap} yarns={yarns} onFinding={onFinding} baseSize={baseSize} colourOf={colourOf}
           sizes={sizes} size={size} onSize={setSize} sizeGrams={sizeGrams} />
       </aside>
     </div>

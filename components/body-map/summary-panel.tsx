@@ -4,7 +4,7 @@ import { useState } from 'react';
 import type { BodyMapSummary } from '@/lib/knit/summary';
 import type { Texture } from '@/lib/knit/texture';
 import type { Yarn } from '@/lib/knit/yarn';
-import type { RuleFinding } from '@/lib/rules';
+import { describeRuleLimits, type RuleFinding, type StudioRuleLimits } from '@/lib/rules';
 import type { GarmentConsumption } from '@/lib/knit/consumption';
 import type { SizeBasis } from '@/lib/knit/yarn-calculator';
 import { labelCaution } from '@/lib/knit/content';
@@ -24,8 +24,8 @@ function Section({ title, children, aside }: { title: string; children: React.Re
   );
 }
 
-export function SummaryPanel({ summary, findings, textures, yarns, onFinding, baseSize, colourOf, sizes, size, onSize, sizeGrams }: {
-  summary: BodyMapSummary; findings: RuleFinding[]; textures: ReadonlyMap<string, Texture>; yarns: readonly Yarn[];
+export function SummaryPanel({ summary, findings, ruleLimits, textures, yarns, onFinding, baseSize, colourOf, sizes, size, onSize, sizeGrams }: {
+  summary: BodyMapSummary; findings: RuleFinding[]; ruleLimits: StudioRuleLimits; textures: ReadonlyMap<string, Texture>; yarns: readonly Yarn[];
   onFinding: (f: RuleFinding) => void; baseSize: string; colourOf: (id: string) => string;
   /** The style's sizes and the one whose grams are shown, with its grams and how they were found. */
   sizes: readonly string[]; size: string; onSize: (size: string) => void;
@@ -153,6 +153,7 @@ export function SummaryPanel({ summary, findings, textures, yarns, onFinding, ba
             ))}
           </ul>
         )}
+        <p className="mt-2 text-2xs text-ink-faint" data-testid="rule-limits">Limits: {describeRuleLimits(ruleLimits)}.</p>
       </Section>
     </>
   );

@@ -9,6 +9,7 @@ import type { Texture } from '@/lib/knit/texture';
 import type { Yarn } from '@/lib/knit/yarn';
 import type { LibraryTexture } from '@/lib/db/textures';
 import type { LibraryYarn } from '@/lib/db/yarns';
+import type { StudioRuleLimits } from '@/lib/rules/limits';
 import { api, ApiError } from '@/lib/api/client';
 import { blankChart, encodeCells, feederSetLetter, feederSets, type Chart } from '@/lib/library/chart';
 import {
@@ -108,10 +109,12 @@ function entryOf(meta: Meta, work: Work, curve: readonly CurvePointDraft[]) {
   };
 }
 
-export function TextureEditor({ texture, yarns, canEdit, preview }: {
+export function TextureEditor({ texture, yarns, canEdit, ruleLimits, preview }: {
   texture?: LibraryTexture;
   yarns: LibraryYarn[];
   canEdit: boolean;
+  /** The studio's float and tuck limits for the checks. */
+  ruleLimits: StudioRuleLimits;
   /** The renderer's tile goes here: a node, or a function of the live texture. */
   preview?: React.ReactNode | ((live: TexturePreviewInput) => React.ReactNode);
 }) {
@@ -237,11 +240,16 @@ export function TextureEditor({ texture, yarns, canEdit, preview }: {
   const onArchive = async () => {
     if (!saved.id || !window.confirm(`Archive ${meta.name}? It leaves the library; nothing is deleted.`)) return;
     try {
-      await api(`/api/library/textures/${saved.id}`, { method: 'DELETE' });
+      // The version this tab last saved or loaded: archiving over a newer save gets 409.
+      await api(`/api/library/textures/${saved.id}?version=${saved.version}`, { method: 'DELETE' });
       await qc.invalidateQueries({ queryKey: ['library'] });
       router.push('/library');
     } catch (e) {
-      setNotice({ tone: 'error', message: e instanceof ApiError ? e.message : 'Archiving failed.' });
+      setNotice({
+        tone: 'error',
+        message: e instanceof ApiError ? e.message : 'Archiving failed.',
+        stale: e instanceof ApiError && e.status === 409 && 'currentVersion' in e.body,
+      });
     }
   };
 
@@ -407,7 +415,7 @@ export function TextureEditor({ texture, yarns, canEdit, preview }: {
 
         <aside className="space-y-5 xl:sticky xl:top-16 xl:self-start">
           <Card title="Computed">
-            <TextureSummary texture={live.texture} problems={live.problems} yarns={yarns} fn={meta.fn || null} gauge={gauge} courseSet={work.chart.feeders} />
+            <TextureSummary texture={live.texture} problems={live.problems} yarns={yarns} fn={meta.fn || null} gauge={gauge} courseSet={work.chart.feeders} ruleLimits={ruleLimits} />
           </Card>
           <Card title="Preview">
             <div data-slot="texture-preview" className="min-h-[8rem]">

@@ -4,7 +4,7 @@ import {
   arealDensity, coursesWithoutElastane, longestFloat, needlePitchMm, repeatSizeMm, stitchesPerCm2, tallestTuckStack, textureTightness,
   yarnPerRepeat, type Texture,
 } from '@/lib/knit/texture';
-import { defaultRuleLimits } from '@/lib/rules/types';
+import { describeRuleLimits, ruleLimitSourceLabels, type StudioRuleLimits } from '@/lib/rules/limits';
 import type { LibraryYarn } from '@/lib/db/yarns';
 import type { TextureFunction } from '@/lib/validations/library';
 import { feederSetLetter } from '@/lib/library/chart';
@@ -45,13 +45,15 @@ function coursesOf(texture: Texture, courses: readonly number[]): Texture {
  * feeder set, floats and tuck stacks against the studio limits, elastane in every course of a
  * compression texture.
  */
-export function TextureSummary({ texture, problems, yarns, fn, gauge, courseSet }: {
+export function TextureSummary({ texture, problems, yarns, fn, gauge, courseSet, ruleLimits }: {
   texture: Texture | null;
   problems: readonly string[];
   yarns: readonly LibraryYarn[];
   fn: TextureFunction | null;
   gauge: number;
   courseSet: readonly number[];
+  /** The studio's float and tuck limits, with where each comes from. */
+  ruleLimits: StudioRuleLimits;
 }) {
   if (!texture || problems.length > 0) {
     return (
@@ -82,7 +84,7 @@ export function TextureSummary({ texture, problems, yarns, fn, gauge, courseSet 
     const use = yarnPerRepeat(coursesOf(texture, courses), byId, gauge);
     return { index: i, courses: courses.length, yarns: Object.entries(use).map(([id, u]) => ({ id, grams: u.grams, metres: u.metres })) };
   });
-  const { maxFloatMm, maxTuckStack } = defaultRuleLimits;
+  const { maxFloatMm, maxTuckStack } = ruleLimits.limits;
 
   return (
     <div className="space-y-5" data-testid="texture-summary">
@@ -145,7 +147,7 @@ export function TextureSummary({ texture, problems, yarns, fn, gauge, courseSet 
             <Check tone="error" title="A course misses on every needle" testId="check-float">Course {float.course + 1}: its yarn would float across the whole fabric.</Check>
           ) : (
             <Check tone={(float.mm ?? 0) > maxFloatMm ? 'warn' : 'ok'} title={`Longest float ${(float.mm ?? 0).toFixed(1)} mm`} testId="check-float">
-              {float.needles} {float.needles === 1 ? 'needle' : 'needles'} in course {float.course + 1}; limit {maxFloatMm} mm{(float.mm ?? 0) > maxFloatMm ? ': it will snag' : ''}.
+              {float.needles} {float.needles === 1 ? 'needle' : 'needles'} in course {float.course + 1}; limit {maxFloatMm} mm ({ruleLimitSourceLabels[ruleLimits.source.maxFloatMm]}){(float.mm ?? 0) > maxFloatMm ? ': it will snag' : ''}.
             </Check>
           )}
           {!tucks ? (
@@ -154,7 +156,7 @@ export function TextureSummary({ texture, problems, yarns, fn, gauge, courseSet 
             <Check tone="error" title={`Needle ${tucks.needle + 1} never knits`} testId="check-tuck">It tucks in every course of the repeat; its loops pile up without end.</Check>
           ) : (
             <Check tone={tucks.tucks > maxTuckStack ? 'error' : 'ok'} title={`Tallest tuck stack ${tucks.tucks}`} testId="check-tuck">
-              On needle {tucks.needle + 1} from course {tucks.startCourse + 1}; a needle holds at most {maxTuckStack}.
+              On needle {tucks.needle + 1} from course {tucks.startCourse + 1}; a needle holds at most {maxTuckStack} ({ruleLimitSourceLabels[ruleLimits.source.maxTuckStack]}).
             </Check>
           )}
           {fn === 'compression' && noElastane.length > 0 ? (
@@ -169,7 +171,7 @@ export function TextureSummary({ texture, problems, yarns, fn, gauge, courseSet 
             </Check>
           )}
         </ul>
-        <p className="mt-3 text-2xs text-ink-faint">Limits: the studio defaults ({maxFloatMm} mm floats, {maxTuckStack} stacked tucks). Weights are estimates from density, loop lengths and counts.</p>
+        <p className="mt-3 text-2xs text-ink-faint" data-testid="rule-limits">Limits: {describeRuleLimits(ruleLimits)}. Weights are estimates from density, loop lengths and counts.</p>
       </div>
     </div>
   );

@@ -364,11 +364,15 @@ export function YarnForm({ yarn, canEdit, usedBy = [] }: { yarn?: LibraryYarn; c
   const onArchive = async () => {
     if (!current || !window.confirm(`Archive ${current.name}? It leaves the library; textures that used it keep their history.`)) return;
     try {
-      await api(`/api/library/yarns/${current.id}`, { method: 'DELETE' });
+      // The version this form last saved or loaded: archiving over a newer save gets 409.
+      await api(`/api/library/yarns/${current.id}?version=${current.version}`, { method: 'DELETE' });
       await qc.invalidateQueries({ queryKey: ['library'] });
       router.push('/library?tab=yarns');
     } catch (err) {
-      setServerError({ message: err instanceof ApiError ? err.message : 'Archiving failed.', stale: false });
+      setServerError({
+        message: err instanceof ApiError ? err.message : 'Archiving failed.',
+        stale: err instanceof ApiError && err.status === 409 && 'currentVersion' in err.body,
+      });
     }
   };
 

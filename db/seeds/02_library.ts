@@ -14,7 +14,8 @@ import { textureInputSchema, yarnInputSchema, type TextureEntry, type YarnEntry 
  * - Common practice, no published source: plating bare elastane in every course of compression
  *   structures, at a draft of about 2.5 to 3; tuck loops shorter than knit loops; tucks stacked
  *   two or three high at most; floats kept well under 6 mm; mock ribs from knit/tuck, mesh from
- *   tuck and miss, piqué from paired tucks, float jacquard from knit/miss in two ground yarns.
+ *   tuck and miss, piqué from paired tucks, float jacquard from knit/miss in two ground yarns,
+ *   rib-like columns from a needle that misses in alternate courses.
  * - Invented for the demo, within the ranges usual for relaxed plated fabric at this gauge: every
  *   density (wales and courses per cm), every loop length, every force–extension curve, every price.
  */
@@ -120,6 +121,18 @@ const textures: TextureSpec[] = [
     density: { walesPerCm: 28, coursesPerCm: 40 }, loopMm: { knit: 2.0, tuck: 1.5 },
     forceExtension: firmCurve,
     notes: 'Covered-elastane ground with bare elastane plated: the firmest hold in the library. Force–extension points are invented demo values.',
+  },
+  {
+    // Rib-like: a knit/miss column structure in single jersey. Common practice, no published source:
+    // one needle in four missing every second course, so its loop is held over two courses and the
+    // three knitted wales between stand out as rib-like columns; 22 dtex elastane plated in every
+    // course for recovery. Invented for the demo: the density (the missed column draws the fabric in
+    // widthwise, so more wales per cm than the plain jersey), the loop lengths and the draft.
+    name: 'Knit-miss rib-look columns', family: 'rib-like', function: 'support',
+    repeat: { needles: 4, courses: 2, cells: ['kkkm', 'kkkk'] },
+    feeders: every(2, { ground: 'pa78', plated: ['el22', 2.6] }),
+    density: { walesPerCm: 24, coursesPerCm: 31 }, loopMm: { knit: 2.3, tuck: 1.7 },
+    notes: 'One needle in four misses every second course: the held loop sinks and the knitted wales stand out as ribs. Floats of one needle (0.9 mm).',
   },
   {
     name: 'Micro-mesh tuck-miss', family: 'mesh', function: 'ventilation',

@@ -23,6 +23,8 @@ export const permissions = [
   'style:share',
   'style:release',
   'members:manage',
+  /** Studio-wide machine settings (stitch-rule limits): admin only. */
+  'studio:settings',
   'library:read',
   'library:edit',
   'colour:edit',

@@ -216,10 +216,13 @@ export async function stylesUsingTexture(studioId: string, textureId: string, q:
 }
 
 /** Archives the texture (kept, hidden from the library); refused while a live style uses it. */
-export async function archiveTexture(user: SessionUser, id: string, q: Knex = db()): Promise<void> {
+export async function archiveTexture(user: SessionUser, id: string, version: number, q: Knex = db()): Promise<void> {
   await q.transaction(async (trx) => {
     const current = await trx('textures').where({ id, studio_id: user.studioId }).whereNull('archived_at').forUpdate().first();
     if (!current) throw notFound('Texture not found.');
+    if (current.version !== version) {
+      throw conflict('Someone saved this texture after you opened it. Reload to see their changes before archiving it.', { currentVersion: current.version });
+    }
     const styles = await stylesUsingTexture(user.studioId, id, trx);
     if (styles.length > 0) {
       throw conflict(`This texture is used by ${styles.length === 1 ? 'style' : 'styles'} ${styles.join(', ')}. Remove it from them first.`, { styles });

@@ -174,10 +174,13 @@ export async function texturesUsingYarn(studioId: string, yarnId: string, q: Db 
 }
 
 /** Archives the yarn (kept, hidden from the library); refused while an active texture feeds it. */
-export async function archiveYarn(user: SessionUser, id: string, q: Knex = db()): Promise<void> {
+export async function archiveYarn(user: SessionUser, id: string, version: number, q: Knex = db()): Promise<void> {
   await q.transaction(async (trx) => {
     const current = await trx('yarns').where({ id, studio_id: user.studioId }).whereNull('archived_at').forUpdate().first();
     if (!current) throw notFound('Yarn not found.');
+    if (current.version !== version) {
+      throw conflict('Someone saved this yarn after you opened it. Reload to see their changes before archiving it.', { currentVersion: current.version });
+    }
     const users = await texturesUsingYarn(user.studioId, id, trx);
     if (users.length > 0) {
       throw conflict(`This yarn feeds ${users.length === 1 ? 'a texture' : `${users.length} textures`} (${users.join(', ')}). Change their feeders first.`, { textures: users });

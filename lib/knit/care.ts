@@ -9,9 +9,19 @@
  *   dry-cleaning instruction (verified); Appendix A water temperatures: cold up to 86 °F, warm
  *   87–111 °F, hot 112–145 °F (verified-2nd). These fix the words "cold", "warm" and "hot" below.
  * - The fibre limits in `fibreCareLimits` are common practice for knitted performance garments or
- *   from memory; each names its status. They are kept consistent with the fibre registry's wet and
- *   dry heat limits (lib/knit/fibres.ts): no iron setting goes above a fibre's dry-heat limit and no
- *   wash goes above its wet-processing limit.
+ *   from memory; each names its status. No published care table was read, so no limit is marked
+ *   verified. Where references.md records a fact behind a limit, its reason names it (the limit
+ *   itself keeps its own status):
+ *   - polylactide: "a melting temperature of at least 135 °C", Regulation (EU) No 1007/2011
+ *     Annex I No 34 (verified);
+ *   - elastane: dyeing polyester/elastane at 130 °C draws the elastane permanently and costs its
+ *     recovery, BASF Technical Information EFT/TS 181 (verified-2nd); its dry-heat limit of 180 °C
+ *     (verified-2nd, low authority) and heat-setting at about 190 °C, beyond which it is damaged
+ *     (verified-2nd, an abstract), references.md §8;
+ *   - polyester: disperse dyeing at up to 130 °C in a pressurised bath (verified-2nd, §8).
+ *   They are kept consistent with the fibre registry's wet and dry heat limits (lib/knit/fibres.ts):
+ *   no iron setting goes above a fibre's dry-heat limit and no wash goes above its wet-processing
+ *   limit.
  *
  * The wording is the product's own and uses no symbol system. Care labelling follows each market's
  * own rules; this is a draft for the technical designer to check, not a compliance statement.
@@ -110,7 +120,8 @@ const mem = (why: string) => ({ status: 'memory' as const, why });
 
 /**
  * Care limits per fibre. Every value is common practice for knitted performance garments or from
- * memory (marked per value); none is taken from a published table. Iron settings stay at or below
+ * memory (marked per value); none is taken from a published table. A reason that rests on a
+ * recorded fact names its source (see the file comment). Iron settings stay at or below
  * the fibre registry's dry-heat limit (lib/knit/fibres.ts `heatLimitC`).
  */
 export const fibreCareLimits: Record<FibreId, FibreCareLimits> = {
@@ -127,7 +138,7 @@ export const fibreCareLimits: Record<FibreId, FibreCareLimits> = {
   polyester: {
     wash: 'machine-60', bleach: 'non-chlorine', dry: 'tumble-low', iron: 'iron-warm', dryClean: 'dry-clean',
     sources: {
-      wash: mem('polyester takes a 60 °C wash'),
+      wash: mem('polyester takes a 60 °C wash; the fibre itself is dyed at up to 130 °C in a pressurised bath (secondary source)'),
       bleach: mem('chlorine bleach is not needed on polyester and strips finishes; non-chlorine only'),
       dry: cp('low heat keeps a polyester knit from setting creases and pilling'),
       iron: mem('polyester takes a warm iron'),
@@ -147,10 +158,10 @@ export const fibreCareLimits: Record<FibreId, FibreCareLimits> = {
   elastane: {
     wash: 'machine-40', bleach: 'no-bleach', dry: 'line-dry', iron: 'iron-cool', dryClean: 'no-dry-clean',
     sources: {
-      wash: cp('elastane loses recovery with hot washing; 40 °C at most'),
+      wash: cp('elastane loses recovery with hot washing; 40 °C at most (a 130 °C dye bath draws it for good: a dye maker note, secondary source)'),
       bleach: mem('chlorine breaks down elastane (the yarn turns brittle and yellow)'),
       dry: cp('tumble-drying heat costs elastane its recovery: no tumble drying where elastane is present'),
-      iron: cp('a cool iron only, and rarely; elastane is damaged well below its dry-heat limit under pressure'),
+      iron: cp('a cool iron only, and rarely; elastane is damaged well below its dry-heat limit (180 °C, low-authority secondary source) under pressure'),
       dryClean: mem('dry-cleaning solvents swell and weaken elastane'),
     },
   },
@@ -240,7 +251,7 @@ export const fibreCareLimits: Record<FibreId, FibreCareLimits> = {
       wash: mem('polylactide softens in hot water; 30 °C'),
       bleach: mem('non-chlorine only'),
       dry: mem('polylactide shrinks with heat'),
-      iron: mem('polylactide melts at about 135 °C or above (its dry-heat limit here is 130 °C); do not iron'),
+      iron: mem('the EU definition puts its melting temperature at 135 °C or more (Regulation (EU) No 1007/2011, Annex I No 34), yet it softens far lower: do not iron'),
       dryClean: mem('mild process'),
     },
   },

@@ -12,7 +12,7 @@
  * A computed label is a statement from nominal data: it must be confirmed by a fibre analysis
  * (e.g. the ISO 1833 methods) before the garment is sold.
  */
-import { euAllowancePct, fibres, isFibreId, type FibreId } from './fibres';
+import { euAllowancePct, fibres, isFibreId, type Fibre, type FibreId } from './fibres';
 import { isStapleFibre, requireYarn, yarnMap, type YarnLookup } from './yarn';
 
 /** Mass fraction per fibre; the values sum to 1. */
@@ -155,9 +155,11 @@ export interface ContentLabel {
 
 export interface ContentLabelOptions {
   /**
-   * EU only: group fibres of up to 5 % each and up to 15 % together as 'other fibres'
-   * (Art. 9(2), allowed where they cannot easily be stated at manufacture). Default false: every
-   * fibre is named (Art. 9(1)).
+   * EU only: group small fibres as 'other fibres' (Art. 9(2), allowed where they cannot easily be
+   * stated at the time of manufacture). Art. 9(2) reads "a fibre which accounts for up to 5 % …, or
+   * fibres which collectively account for up to 15 %"; Needlemap applies the cautious reading of both
+   * together: each grouped fibre at most 5 % and all of them at most 15 %. Default false: every fibre
+   * is named (Art. 9(1)).
    */
   otherFibres?: boolean;
   /**
@@ -171,6 +173,21 @@ export interface ContentLabelOptions {
 export const SMALL_SHARE_THRESHOLD = 0.05;
 /** EU Art. 9(2): 'other fibres' may hold up to 15 % together. */
 export const EU_OTHER_FIBRES_TOTAL = 0.15;
+/**
+ * Float slack for comparing shares with each other and with thresholds: shares computed from grams
+ * carry rounding error (95 g : 5 g can give 0.049999999999999996), and a share that is exactly at a
+ * legal threshold must fall on the side the text puts it.
+ */
+const SHARE_EPSILON = 1e-9;
+
+/** -1 if `a` is below `b`, 1 if above, 0 if they are equal within `SHARE_EPSILON`. */
+function compareShares(a: number, b: number): -1 | 0 | 1 {
+  const d = a - b;
+  if (d > SHARE_EPSILON) return 1;
+  if (d < -SHARE_EPSILON) return -1;
+  return 0;
+}
+
 /** EU Art. 20(3) manufacturing tolerance, % of the fibre weight. */
 export const EU_TOLERANCE_PCT = 3;
 /** US §303.43 tolerance, percentage points (from memory). */
@@ -183,9 +200,16 @@ export const labelCaution =
  * Whole percentages that sum to 100, by the largest-remainder method: floor every value, then give
  * the remaining points to the largest remainders (ties to the larger value, then the earlier entry).
  * With `minimumOne`, an entry above zero that would round to 0 gets 1 point, taken from the entry that
- * was rounded up the most (or else the largest).
+ * was rounded up the most (ties to the larger, then the later entry). Values equal within float error
+ * count as ties.
  */
 export function largestRemainderPercents(values: readonly number[], minimumOne = false): number[] {
+  return roundPercents(values, minimumOne).percents;
+}
+
+/** `largestRemainderPercents`, also telling which entries were rounded to 0 and then raised to 1. */
+function roundPercents(values: readonly number[], minimumOne: boolean): { percents: number[]; raisedToOne: boolean[] } {
+  const raisedToOne = values.map(() => false);
   const total = values.reduce((s, v) => s + v, 0);
   if (!(total > 0)) throw new RangeError('Nothing to share out.');
   const exact = values.map((v) => (v / total) * 100);
@@ -193,7 +217,8 @@ export function largestRemainderPercents(values: readonly number[], minimumOne =
   let left = 100 - out.reduce((s, v) => s + v, 0);
   const order = exact
     .map((e, i) => ({ i, r: e - Math.floor(e), e }))
-    .sort((p, q) => q.r - p.r || q.e - p.e || p.i - q.i);
+    // Equal within float error counts as a tie, so equal shares from grams round the same way.
+    .sort((p, q) => compareShares(q.r, p.r) || compareShares(q.e, p.e) || p.i - q.i);
   for (let k = 0; left > 0 && k < order.length; k++, left--) {
     const i = (order[k] as { i: number }).i;
     out[i] = (out[i] as number) + 1;
@@ -206,7 +231,10 @@ export function largestRemainderPercents(values: readonly number[], minimumOne =
       for (let j = 0; j < out.length; j++) {
         if ((out[j] as number) <= 1) continue;
         const up = (out[j] as number) - (exact[j] as number);
-        if (up > best || (up === best && (out[j] as number) > (out[donor] ?? 0))) {
+        // Ties (within float error) go to the larger entry, then the later one, so that equal
+        // shares keep the earlier line at least as high as the later.
+        const vs = compareShares(up, best);
+        if (vs > 0 || (vs === 0 && (out[j] as number) >= (out[donor] ?? 0))) {
           best = up;
           donor = j;
         }
@@ -214,9 +242,10 @@ export function largestRemainderPercents(values: readonly number[], minimumOne =
       if (donor < 0) break;
       out[donor] = (out[donor] as number) - 1;
       out[i] = 1;
+      raisedToOne[i] = true;
     }
   }
-  return out;
+  return { percents: out, raisedToOne };
 }
 
 function normalise(shares: FibreShares): { fibre: FibreId; share: number }[] {
@@ -236,10 +265,52 @@ function normalise(shares: FibreShares): { fibre: FibreId; share: number }[] {
 
 const pct = (share: number) => `${(share * 100).toFixed(1)} %`;
 
+interface NameGroup {
+  name: string;
+  share: number;
+  fibres: FibreId[];
+}
+
+/** Descending by share, ties by name. */
+function sortGroups(groups: NameGroup[]): NameGroup[] {
+  return groups.sort((p, q) => compareShares(q.share, p.share) || p.name.localeCompare(q.name));
+}
+
+/**
+ * US: the 5 % rule of 16 CFR 303.6 is about generic fibres, so members of one generic (viscose,
+ * modal and lyocell are rayon) count together. Each keeps its own name only if every member is
+ * 5 % or more; otherwise they are one line under the generic name. A fibre named for its
+ * functional significance (§303.3(a)) keeps its own line.
+ */
+function joinUsGenerics(named: NameGroup[], isFunctional: (g: NameGroup) => boolean, notes: string[]): NameGroup[] {
+  const generic = (g: NameGroup) => {
+    const first: Fibre = fibres[g.fibres[0] as FibreId];
+    return first.names.usGeneric ?? g.name;
+  };
+  const members = new Map<string, NameGroup[]>();
+  for (const g of named) {
+    if (isFunctional(g)) continue;
+    const list = members.get(generic(g)) ?? [];
+    list.push(g);
+    members.set(generic(g), list);
+  }
+  let out = named;
+  for (const [name, list] of members) {
+    if (list.length < 2 || list.every((g) => compareShares(g.share, SMALL_SHARE_THRESHOLD) >= 0)) continue;
+    const joined: NameGroup = { name, share: list.reduce((s, g) => s + g.share, 0), fibres: list.flatMap((g) => g.fibres) };
+    out = [...out.filter((g) => !list.includes(g)), joined];
+    notes.push(
+      `${list.map((g) => `${g.name} ${pct(g.share)}`).join(', ')}: all ${name} under 16 CFR 303.7 (from memory), not each 5 % or more, so labelled together as ${name} (§303.6).`,
+    );
+  }
+  return out === named ? named : sortGroups(out);
+}
+
 /**
  * The fibre-content label for a region, from shares per fibre (any scale; normalised to 1).
  * Names: EU Annex I / US §303.7 (fibres with the same label name are added together). Order:
- * descending (EU Art. 9(1); US §303.42(a) 'order of predominance'), with 'other fibres' last.
+ * descending (EU Art. 9(1); US §303.42(a) 'order of predominance'); the EU 'other fibres' line by its
+ * percentage, the US 'other fiber(s)' line last (§303.42(a)).
  * Percentages: whole numbers summing to 100 by largest remainder; a fibre present is never shown
  * as 0 %. Small shares: EU names every fibre unless `otherFibres` (Art. 9(2)); US groups fibres
  * under 5 % as 'other fiber(s)' (§303.6, §303.42(a)) except functionally significant ones
@@ -251,7 +322,7 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
   const notes: string[] = [];
 
   // Group by the region's name.
-  const groups = new Map<string, { name: string; share: number; fibres: FibreId[] }>();
+  const groups = new Map<string, NameGroup>();
   for (const e of entries) {
     const name = fibres[e.fibre].names[region];
     const g = groups.get(name) ?? { name, share: 0, fibres: [] };
@@ -259,20 +330,24 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
     g.fibres.push(e.fibre);
     groups.set(name, g);
   }
-  const named = [...groups.values()].sort((p, q) => q.share - p.share || p.name.localeCompare(q.name));
+  let named = sortGroups([...groups.values()]);
 
   let other: { share: number; fibres: FibreId[]; names: string[] } | undefined;
   const tolerance = region === 'eu' ? EU_TOLERANCE_PCT : US_TOLERANCE_PCT;
-  const nearThreshold = (share: number) => Math.abs(share * 100 - SMALL_SHARE_THRESHOLD * 100) <= tolerance;
+  const nearThreshold = (share: number, threshold: number) => compareShares(Math.abs(share - threshold), tolerance / 100) <= 0;
 
   switch (region) {
     case 'eu': {
       if (opts.otherFibres) {
-        const small = named.filter((g) => g.share <= SMALL_SHARE_THRESHOLD).sort((p, q) => p.share - q.share);
+        // Smallest shares are grouped first (ties by name), as many as fit in 15 %: the choice of
+        // which fibres stay named is the same for the same shares, and the larger ones stay named.
+        const small = named
+          .filter((g) => compareShares(g.share, SMALL_SHARE_THRESHOLD) <= 0)
+          .sort((p, q) => compareShares(p.share, q.share) || p.name.localeCompare(q.name));
         let sum = 0;
         const grouped: typeof small = [];
         for (const g of small) {
-          if (sum + g.share > EU_OTHER_FIBRES_TOTAL + 1e-12) break;
+          if (compareShares(sum + g.share, EU_OTHER_FIBRES_TOTAL) > 0) break;
           sum += g.share;
           grouped.push(g);
         }
@@ -280,17 +355,19 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
         if (grouped.length > 0 && grouped.length < named.length) {
           other = { share: sum, fibres: grouped.flatMap((g) => g.fibres), names: grouped.map((g) => g.name) };
           notes.push(
-            `'other fibres' (${grouped.map((g) => `${g.name} ${pct(g.share)}`).join(', ')}): allowed for fibres of up to 5 % each and up to 15 % together only where they cannot easily be stated at the time of manufacture (Reg. (EU) 1007/2011 Art. 9(2)).`,
+            `'other fibres' (${grouped.map((g) => `${g.name} ${pct(g.share)}`).join(', ')}): Reg. (EU) 1007/2011 Art. 9(2) allows it for "a fibre which accounts for up to 5 %" or "fibres which collectively account for up to 15 %", and only where they cannot easily be stated at the time of manufacture. Needlemap applies the cautious reading: each grouped fibre at most 5 % and all of them at most 15 % together.`,
           );
-          if (Math.abs(sum * 100 - EU_OTHER_FIBRES_TOTAL * 100) <= tolerance) {
+          if (nearThreshold(sum, EU_OTHER_FIBRES_TOTAL)) {
             notes.push(
               `'other fibres' total ${pct(sum)} is within the ${tolerance} % manufacturing tolerance (Art. 20(3)) of the 15 % limit of Art. 9(2).`,
             );
           }
         }
       }
+      // Only a fibre grouped as 'other fibres' is at risk: analysis over 5 % would make the grouping
+      // wrong. A named fibre stays correctly named on either side of 5 %.
       for (const g of named) {
-        if (nearThreshold(g.share)) {
+        if (other?.names.includes(g.name) && nearThreshold(g.share, SMALL_SHARE_THRESHOLD)) {
           notes.push(
             `${g.name} at ${pct(g.share)} is within the ${tolerance} % manufacturing tolerance (Art. 20(3)) of the 5 % limit up to which a fibre may be grouped as 'other fibres' (Art. 9(2)).`,
           );
@@ -302,12 +379,15 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
       const functional = new Set<FibreId>(
         opts.functionalFibres ?? entries.filter((e) => fibres[e.fibre].kind === 'elastomeric').map((e) => e.fibre),
       );
-      const small = named.filter((g) => g.share < SMALL_SHARE_THRESHOLD);
-      const grouped = small.filter((g) => !g.fibres.every((f) => functional.has(f)));
+      const isFunctional = (g: { fibres: FibreId[] }) => g.fibres.every((f) => functional.has(f));
+      named = joinUsGenerics(named, isFunctional, notes);
+      const small = named.filter((g) => compareShares(g.share, SMALL_SHARE_THRESHOLD) < 0);
+      const grouped = small.filter((g) => !isFunctional(g));
       for (const g of small) {
         if (grouped.includes(g)) continue;
+        const reason = g.fibres.every((f) => fibres[f].kind === 'elastomeric') ? ' (stretch)' : '';
         notes.push(
-          `${g.name} at ${pct(g.share)} is under 5 % but named for its functional significance (stretch) under 16 CFR 303.3(a); that significance must be real and established.`,
+          `${g.name} at ${pct(g.share)} is under 5 % but named for its functional significance${reason} under 16 CFR 303.3(a); that significance must be real and established.`,
         );
       }
       if (grouped.length > 0) {
@@ -320,8 +400,9 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
           `${grouped.map((g) => `${g.name} ${pct(g.share)}`).join(', ')}: under 5 % and not named, so labelled '${grouped.length === 1 ? 'other fiber' : 'other fibers'}' (16 CFR 303.6, 303.42(a)).`,
         );
       }
+      // A fibre named for its functional significance keeps its line on either side of 5 %.
       for (const g of named) {
-        if (nearThreshold(g.share)) {
+        if (!isFunctional(g) && nearThreshold(g.share, SMALL_SHARE_THRESHOLD)) {
           notes.push(
             `${g.name} at ${pct(g.share)} is within the ${tolerance}-point tolerance (16 CFR 303.43) of the 5 % naming threshold (§303.6); an analysis may put it on the other side.`,
           );
@@ -337,7 +418,18 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
     const otherName = region === 'eu' ? 'other fibres' : other.names.length === 1 ? 'other fiber' : 'other fibers';
     rows.push({ name: otherName, share: other.share, fibres: other.fibres, other: true });
   }
-  const percents = largestRemainderPercents(
+  switch (region) {
+    case 'eu':
+      // Art. 9(1) puts all constituent fibres in descending order; Art. 9(2) says only that 'other
+      // fibres' is preceded or followed by its total percentage, nothing of where the line goes. So
+      // it takes its place by its percentage, after a named fibre of the same share.
+      rows.sort((p, q) => compareShares(q.share, p.share) || Number(p.other) - Number(q.other));
+      break;
+    case 'us':
+      // §303.42(a): 'other fiber(s)' follows the named fibres.
+      break;
+  }
+  const { percents, raisedToOne } = roundPercents(
     rows.map((r) => r.share),
     true,
   );
@@ -348,8 +440,8 @@ export function contentLabel(shares: FibreShares, region: LabelRegion, opts: Con
     fibres: r.fibres,
     other: r.other,
   }));
-  for (const l of lines) {
-    if (l.exactPercent > 0 && l.exactPercent < 0.5) {
+  for (const [i, l] of lines.entries()) {
+    if (raisedToOne[i]) {
       notes.push(`${l.name} (${l.exactPercent.toFixed(2)} %) would round to 0 % and is shown as 1 %.`);
     }
   }

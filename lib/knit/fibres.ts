@@ -31,6 +31,11 @@ export interface FibreNames {
   /** Other names the region also accepts (e.g. Annex I No 30 "polyamide or nylon"). */
   euAlternatives?: readonly string[];
   usAlternatives?: readonly string[];
+  /**
+   * The US generic fibre the default name belongs to, where it differs from `us`: its share is
+   * counted with the other members of that generic for the 5 % rule (16 CFR 303.6).
+   */
+  usGeneric?: string;
 }
 
 export interface Fibre {
@@ -199,7 +204,7 @@ export const fibres = {
   modal: fibre({
     id: 'modal',
     // US: ISO 2076 name 'modal' (incorporated into §303.7, verified-2nd); FTC generic 'rayon' (memory).
-    names: { eu: 'modal', us: 'modal', usAlternatives: ['rayon'] },
+    names: { eu: 'modal', us: 'modal', usAlternatives: ['rayon'], usGeneric: 'rayon' },
     code: 'CMD',
     kind: 'cellulosic',
     natural: false,
@@ -216,7 +221,7 @@ export const fibres = {
   lyocell: fibre({
     id: 'lyocell',
     // US: subclass of rayon, §303.7(d)(1) (memory).
-    names: { eu: 'lyocell', us: 'lyocell', usAlternatives: ['rayon'] },
+    names: { eu: 'lyocell', us: 'lyocell', usAlternatives: ['rayon'], usGeneric: 'rayon' },
     code: 'CLY',
     kind: 'cellulosic',
     natural: false,

@@ -19,6 +19,7 @@ import { checkZoneRepeats } from './zone-repeat';
 
 export * from './types';
 export * from './trim';
+export { describeRuleLimits, resolveRuleLimits, ruleLimitSourceLabels, type RuleLimitSource, type StudioRuleLimits } from './limits';
 export { checkCompressionElastane } from './compression-elastane';
 export { checkDyeClashes } from './dye-clash';
 export { checkFloats } from './floats';

@@ -631,3 +631,11 @@ export type TrimPatch = z.infer<typeof trimPatchSchema>;
 export const trimDeleteQuerySchema = z.object({
   version: z.preprocess((v) => (isBlank(v) ? undefined : toNumber(v)), z.number().int().positive().optional()),
 });
+
+/** `?version=` of archiving a library yarn or texture: the version the caller saw, required (a stale one gets 409). */
+export const archiveQuerySchema = z.object({
+  version: z.preprocess(
+    (v) => (isBlank(v) ? undefined : toNumber(v)),
+    z.number({ error: 'Give the version you saw (?version=)' }).int('The version is a whole number').positive('The version is a whole number'),
+  ),
+});

@@ -395,7 +395,7 @@ export const matrix: Record<string, Entry> = {
       return c.patch(`/api/library/yarns/${y.id}`, { version: y.version, supplierRef: 'MX-1' });
     },
   },
-  'DELETE /api/library/yarns/[id]': { expect: editors(200), run: async (c) => c.delete(`/api/library/yarns/${(await freshYarn()).id}`) },
+  'DELETE /api/library/yarns/[id]': { expect: editors(200), run: async (c) => { const y = await freshYarn(); return c.delete(`/api/library/yarns/${y.id}?version=${y.version}`); } },
   'GET /api/library/textures': { expect: staffOnly(200), run: (c) => c.get('/api/library/textures') },
   'POST /api/library/textures': { expect: editors(201), run: async (c) => c.post('/api/library/textures', await textureBody()) },
   'GET /api/library/textures/[id]': { expect: staffOnly(200), run: async (c) => c.get(`/api/library/textures/${(await freshTexture()).id}`) },
@@ -406,7 +406,7 @@ export const matrix: Record<string, Entry> = {
       return c.patch(`/api/library/textures/${t.id}`, { version: t.version, notes: 'Matrix note' });
     },
   },
-  'DELETE /api/library/textures/[id]': { expect: editors(200), run: async (c) => c.delete(`/api/library/textures/${(await freshTexture()).id}`) },
+  'DELETE /api/library/textures/[id]': { expect: editors(200), run: async (c) => { const t = await freshTexture(); return c.delete(`/api/library/textures/${t.id}?version=${t.version}`); } },
   // Everyone who sees the style reads its textures and trims: mill and client included for shared styles.
   'GET /api/styles/[id]/textures': { expect: workingCopy(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/textures`) },
   'PUT /api/styles/[id]/textures': {
@@ -637,6 +637,9 @@ export const matrix: Record<string, Entry> = {
   'GET /api/styles/[id]/quote/export': { expect: staffOnly(200), run: (c, ctx) => c.get(`/api/styles/${ctx.sharedStyleId}/quote/export?format=csv`) },
   'GET /api/settings/costing': { expect: staffOnly(200), run: (c) => c.get('/api/settings/costing') },
   'PUT /api/settings/costing': { expect: editors(200), run: (c) => c.put('/api/settings/costing', { rates: { machineMinuteRate: 0.35 } }) },
+  'GET /api/settings/machine-limits': { expect: staffOnly(200), run: (c) => c.get('/api/settings/machine-limits') },
+  // Blank limits: the defaults stay, so the other tests' rule findings do not change.
+  'PUT /api/settings/machine-limits': { expect: adminOnly(200), run: (c) => c.put('/api/settings/machine-limits', { limits: { maxFloatMm: null, maxTuckStack: null } }) },
 };
 
 function briefReaders(ok: number) {

@@ -130,25 +130,44 @@ describe('library: yarns', () => {
   it('archiving a yarn that feeds a texture is refused; an unused one disappears from the library', async () => {
     const designer = await as('designer');
     const pa = await libraryYarn('Polyamide 6.6 78/68 semi-dull');
-    const refused = await designer.delete(`/api/library/yarns/${pa.id}`);
+    const refused = await designer.delete(`/api/library/yarns/${pa.id}?version=${pa.version}`);
     expect(refused.status).toBe(409);
     expect(refused.json.textures).toContain('Plain plated jersey');
     const y = (await designer.post('/api/library/yarns', yarnBody())).json.yarn;
-    expect((await designer.delete(`/api/library/yarns/${y.id}`)).status).toBe(200);
+    expect((await designer.delete(`/api/library/yarns/${y.id}?version=${y.version}`)).status).toBe(200);
     const list = (await designer.get('/api/library/yarns')).json.yarns;
     expect(list.map((x: { id: string }) => x.id)).not.toContain(y.id);
-    expect((await designer.delete(`/api/library/yarns/${y.id}`)).status).toBe(404);
+    expect((await designer.delete(`/api/library/yarns/${y.id}?version=${y.version + 1}`)).status).toBe(404);
+  });
+
+  it('archiving a yarn takes the version you saw: a stale one gets 409, a missing or bad one 400, and the yarn stays', async () => {
+    const designer = await as('designer');
+    const y = (await designer.post('/api/library/yarns', yarnBody())).json.yarn;
+    const edited = (await designer.patch(`/api/library/yarns/${y.id}`, { version: y.version, supplierRef: 'EDITED' })).json.yarn;
+    const stale = await designer.delete(`/api/library/yarns/${y.id}?version=${y.version}`);
+    expect(stale.status).toBe(409);
+    expect(stale.json.currentVersion).toBe(edited.version);
+    for (const q of ['', '?version=', '?version=abc', '?version=0', '?version=1.5']) {
+      const res = await designer.delete(`/api/library/yarns/${y.id}${q}`);
+      expect(res.status, q).toBe(400);
+      expect(res.json.fieldErrors.version, q).toBeDefined();
+    }
+    const still = await designer.get(`/api/library/yarns/${y.id}`);
+    expect(still.json.yarn).toMatchObject({ supplierRef: 'EDITED', version: edited.version });
+    expect((await designer.get('/api/library/yarns')).json.yarns.map((x: { id: string }) => x.id)).toContain(y.id);
+    expect((await designer.delete(`/api/library/yarns/${y.id}?version=${edited.version}`)).status).toBe(200);
   });
 });
 
 describe('library: textures', () => {
-  it('the demo library holds at least eight textures across the families, compression ones with a curve', async () => {
+  it('the demo library holds at least eight textures across all seven families, compression ones with a curve', async () => {
     const designer = await as('designer');
     const textures = (await designer.get('/api/library/textures')).json.textures as {
       family: string; function: string | null; forceExtension?: unknown[];
     }[];
     expect(textures.length).toBeGreaterThanOrEqual(8);
-    expect([...new Set(textures.map((t) => t.family))]).toEqual(expect.arrayContaining(['jersey', 'mock-rib', 'mesh', 'pique', 'float-jacquard', 'terry']));
+    // The seven families of the library issue, each at least once.
+    expect([...new Set(textures.map((t) => t.family))]).toEqual(expect.arrayContaining(['jersey', 'mock-rib', 'rib-like', 'mesh', 'pique', 'float-jacquard', 'terry']));
     for (const t of textures.filter((x) => x.function === 'compression')) expect(t.forceExtension?.length).toBeGreaterThan(2);
   });
 
@@ -209,13 +228,32 @@ describe('library: textures', () => {
   it('archiving a texture a style uses is refused; an unused one is archived', async () => {
     const designer = await as('designer');
     const textures = (await designer.get('/api/library/textures')).json.textures as { id: string; name: string }[];
-    const used = textures.find((t) => t.name === 'Plain plated jersey')!;
-    const refused = await designer.delete(`/api/library/textures/${used.id}`);
+    const used = textures.find((t) => t.name === 'Plain plated jersey')! as { id: string; name: string; version: number };
+    const refused = await designer.delete(`/api/library/textures/${used.id}?version=${used.version}`);
     expect(refused.status).toBe(409);
     expect(refused.json.styles).toContain('HF27-101');
     const t = (await designer.post('/api/library/textures', await textureBody())).json.texture;
-    expect((await designer.delete(`/api/library/textures/${t.id}`)).status).toBe(200);
+    expect((await designer.delete(`/api/library/textures/${t.id}?version=${t.version}`)).status).toBe(200);
     expect((await designer.get('/api/library/textures')).json.textures.map((x: { id: string }) => x.id)).not.toContain(t.id);
+  });
+
+  it('archiving a texture from a stale tab gets 409 and keeps the newer save; no version is a 400', async () => {
+    const designer = await as('designer');
+    const t = (await designer.post('/api/library/textures', await textureBody())).json.texture;
+    // Another tab saves a painted cell after this one opened the texture.
+    const saved = await designer.patch(`/api/library/textures/${t.id}`, { version: t.version, repeat: { needles: 2, courses: 2, cells: ['km', 'kk'] } });
+    expect(saved.status).toBe(200);
+    const stale = await designer.delete(`/api/library/textures/${t.id}?version=${t.version}`);
+    expect(stale.status).toBe(409);
+    expect(stale.json.currentVersion).toBe(saved.json.texture.version);
+    const missing = await designer.delete(`/api/library/textures/${t.id}`);
+    expect(missing.status).toBe(400);
+    expect(missing.json.fieldErrors.version).toBeDefined();
+    expect((await designer.delete(`/api/library/textures/${t.id}?version=x`)).status).toBe(400);
+    const now = (await designer.get(`/api/library/textures/${t.id}`)).json.texture;
+    expect(now.archivedAt ?? null).toBeNull();
+    expect(now.repeat.cells[0]).toEqual(['knit', 'miss']);
+    expect((await designer.delete(`/api/library/textures/${t.id}?version=${now.version}`)).status).toBe(200);
   });
 });
 
@@ -227,7 +265,7 @@ describe('library: studio isolation', () => {
     const pa = await libraryYarn('Polyamide 6.6 78/68 semi-dull');
     expect((await other.get(`/api/library/yarns/${pa.id}`)).status).toBe(404);
     expect((await other.patch(`/api/library/yarns/${pa.id}`, { version: pa.version, name: 'Taken over' })).status).toBe(404);
-    expect((await other.delete(`/api/library/yarns/${pa.id}`)).status).toBe(404);
+    expect((await other.delete(`/api/library/yarns/${pa.id}?version=${pa.version}`)).status).toBe(404);
     const designer = await as('designer');
     const texture = (await designer.get('/api/library/textures')).json.textures[0];
     expect((await other.get(`/api/library/textures/${texture.id}`)).status).toBe(404);

@@ -61,6 +61,65 @@ describe('the studio library in the browser', () => {
     expect(stored.repeat.cells).toEqual([['knit', 'tuck', 'knit', 'knit'], ['knit', 'knit', 'miss', 'miss']]);
   });
 
+  it('fills a course and a needle, shifts, resizes keeping the content, picks a feeder set per course, and saves', async () => {
+    const designer = await as('designer');
+    const yarns = (await designer.get('/api/library/yarns')).json.yarns as { id: string; name: string }[];
+    const pa = yarns.find((y) => y.name === 'Polyamide 6.6 78/68 semi-dull')!;
+    const el = yarns.find((y) => y.name === 'Bare elastane 22 dtex')!;
+    const name = `Browser tools ${Date.now().toString(36)}`;
+    // Two feeder sets: A plates elastane (course 1), B knits the ground alone (course 2).
+    const plated = { ground: pa.id, plated: { yarn: el.id, draft: 2.6 } };
+    const bare = { ground: pa.id };
+    const created = await designer.post('/api/library/textures', {
+      name, family: 'jersey', function: 'support', repeat: { needles: 4, courses: 2, cells: ['kkkk', 'kkkk'] },
+      feeders: [plated, bare], density: { walesPerCm: 20, coursesPerCm: 28 }, loopMm: { knit: 2.4, tuck: 1.8 },
+    });
+    expect(created.status).toBe(201);
+
+    const page = await signIn(browser, accounts.designer);
+    await page.goto(`${baseUrl()}/library/textures/${created.json.texture.id}`);
+    await expect.poll(() => page.getByTestId('save-state').textContent()).toContain('Saved · version 1');
+    // The limits say where they come from (no studio setting in the demo data).
+    expect(await page.getByTestId('rule-limits').textContent()).toContain('(default)');
+
+    // Tuck: fill course 1 → course 1 tttt, course 2 kkkk.
+    await page.getByRole('radio', { name: /Tuck/ }).click();
+    await page.getByRole('button', { name: 'Fill course 1 with tuck' }).click();
+    // Miss: fill needle 2 in every course → tmtt / kmkk.
+    await page.getByRole('radio', { name: /Miss/ }).click();
+    await page.getByRole('button', { name: 'Fill needle 2 with miss' }).click();
+    expect(await cell(page, 0, 1).getAttribute('data-action')).toBe('miss');
+    expect(await cell(page, 1, 1).getAttribute('data-action')).toBe('miss');
+    expect(await cell(page, 0, 0).getAttribute('data-action')).toBe('tuck');
+    // Shift right, wrapping: every needle moves to the next one → ttmt / kkmk.
+    await page.getByRole('button', { name: 'Shift the repeat right' }).click();
+    expect(await cell(page, 0, 2).getAttribute('data-action')).toBe('miss');
+    expect(await cell(page, 0, 1).getAttribute('data-action')).toBe('tuck');
+
+    // Resize 4 × 2 → 5 × 3: the content stays anchored at needle 1, course 1; new cells knit,
+    // the new course takes the feeder set of the last one (B).
+    await page.getByLabel('Repeat width in needles').fill('5');
+    await page.getByLabel('Repeat height in courses').fill('3');
+    await page.getByRole('button', { name: 'Resize', exact: true }).click();
+    await expect.poll(() => page.getByTestId('stitch-chart').getAttribute('aria-label')).toBe('Stitch chart, 5 needles by 3 courses');
+    expect(await page.getByLabel('Feeder of course 3').inputValue()).toBe('1');
+    // Course 3 on feeder set A instead.
+    await page.getByLabel('Feeder of course 3').selectOption('0');
+    await expect.poll(() => page.getByTestId('save-state').textContent()).toContain('Unsaved changes');
+
+    await page.getByRole('button', { name: 'Save texture' }).click();
+    await expect.poll(() => page.getByTestId('save-state').textContent()).toContain('Saved · version 2');
+
+    const stored = (await designer.get(`/api/library/textures/${created.json.texture.id}`)).json.texture;
+    expect(stored.repeat).toMatchObject({ needles: 5, courses: 3 });
+    expect(stored.repeat.cells).toEqual([
+      ['tuck', 'tuck', 'miss', 'tuck', 'knit'],
+      ['knit', 'knit', 'miss', 'knit', 'knit'],
+      ['knit', 'knit', 'knit', 'knit', 'knit'],
+    ]);
+    expect(stored.feeders).toEqual([plated, bare, plated]);
+  });
+
   it('the yarn form reads a count in denier and shows its dtex at once', async () => {
     const page = await signIn(browser, accounts.designer);
     await page.goto(`${baseUrl()}/library/yarns/new`);

@@ -4,11 +4,13 @@ import { currentUser } from '@/lib/auth/authorize';
 import { can } from '@/lib/auth/roles';
 import { listTextures } from '@/lib/db/textures';
 import { listYarns } from '@/lib/db/yarns';
+import { studioRuleLimits } from '@/lib/db/rule-limits';
 import { PageHeader } from '@/components/ui/card';
 import { ButtonLink } from '@/components/ui/button';
 import { LibraryTabs, type LibraryTab } from '@/components/library/library-tabs';
 import { TexturesTable } from '@/components/library/textures-table';
 import { YarnsTable } from '@/components/library/yarns-table';
+import { MachineLimitsForm } from '@/components/library/machine-limits-form';
 
 export const metadata: Metadata = { title: 'Library' };
 
@@ -18,7 +20,7 @@ export default async function LibraryPage({ searchParams }: { searchParams: Prom
   if (!can(user.role, 'library:read')) redirect('/styles');
   const tab: LibraryTab = (await searchParams).tab === 'yarns' ? 'yarns' : 'textures';
   const canEdit = can(user.role, 'library:edit');
-  const [textures, yarns] = await Promise.all([listTextures(user), listYarns(user)]);
+  const [textures, yarns, ruleLimits] = await Promise.all([listTextures(user), listYarns(user), studioRuleLimits(user.studioId)]);
   return (
     <>
       <PageHeader
@@ -38,7 +40,10 @@ export default async function LibraryPage({ searchParams }: { searchParams: Prom
       {tab === 'yarns' ? (
         <YarnsTable initial={yarns} canEdit={canEdit} />
       ) : (
-        <TexturesTable initialTextures={textures} initialYarns={yarns} canEdit={canEdit} />
+        <>
+          <MachineLimitsForm initial={ruleLimits} editable={can(user.role, 'studio:settings')} />
+          <TexturesTable initialTextures={textures} initialYarns={yarns} canEdit={canEdit} />
+        </>
       )}
     </>
   );

@@ -14,6 +14,7 @@ import {
   largestRemainderPercents,
   labelCaution,
   type FibreShares,
+  type LabelLine,
 } from '@/lib/knit/content';
 
 const yarn = (id: string, dtex: number, fibre: FibreId, extra: Partial<Yarn> = {}): Yarn => ({
@@ -179,6 +180,11 @@ describe('contentLabel: EU (Regulation (EU) No 1007/2011)', () => {
     expect(grouped.text).toBe('90 % polyester, 6 % polyamide, 4 % other fibres');
     expect(grouped.lines.at(-1)).toMatchObject({ name: 'other fibres', other: true, fibres: ['elastane'] });
     expect(grouped.notes.join('\n')).toMatch(/Art\. 9\(2\)/);
+    // The note quotes Art. 9(2) (references.md §2(b)) and says which reading is applied, not that it is the law.
+    const note = grouped.notes.find((n) => n.startsWith("'other fibres' (")) ?? '';
+    expect(note).toContain('"a fibre which accounts for up to 5 %" or "fibres which collectively account for up to 15 %"');
+    expect(note).toMatch(/applies the cautious reading/);
+    expect(note).not.toMatch(/allowed for fibres of up to 5 % each and up to 15 % together/);
   });
 
   it("'other fibres': up to 5 % each (5 % itself included) and up to 15 % together", () => {
@@ -193,11 +199,39 @@ describe('contentLabel: EU (Regulation (EU) No 1007/2011)', () => {
     expect(label.lines.reduce((s, l) => s + l.percent, 0)).toBe(100);
   });
 
-  it('notes a share within the 3 % manufacturing tolerance (Art. 20(3)) of the 5 % threshold', () => {
-    const near = contentLabel({ polyester: 0.94, elastane: 0.06 }, 'eu');
-    expect(near.notes.some((n) => n.includes('elastane') && n.includes('Art. 20(3)'))).toBe(true);
-    const far = contentLabel({ polyester: 0.91, elastane: 0.09 }, 'eu');
+  it("'other fibres' takes its place by percentage (Art. 9(1) descending order); the smallest shares are grouped first, ties by name", () => {
+    const label = contentLabel({ polyester: 0.8, polyamide: 0.05, acrylic: 0.05, cotton: 0.05, wool: 0.05 }, 'eu', { otherFibres: true });
+    expect(label.text).toBe('80 % polyester, 15 % other fibres, 5 % wool');
+    expect(label.lines.find((l) => l.other)?.fibres).toEqual(['acrylic', 'cotton', 'polyamide']);
+    // 4 + 4 + 5 + 5: the two 4 % fibres, then cotton (before polyamide by name), fit in 15 %: 13 %.
+    const mixed = contentLabel({ polyester: 0.82, polyamide: 0.05, cotton: 0.05, acrylic: 0.04, wool: 0.04 }, 'eu', { otherFibres: true });
+    expect(mixed.text).toBe('82 % polyester, 13 % other fibres, 5 % polyamide');
+    expect(mixed.lines.find((l) => l.other)?.fibres).toEqual(['acrylic', 'wool', 'cotton']);
+  });
+
+  it("notes a fibre grouped as 'other fibres' within the 3 % manufacturing tolerance (Art. 20(3)) of the 5 % limit", () => {
+    const near = contentLabel({ polyester: 0.96, elastane: 0.04 }, 'eu', { otherFibres: true });
+    expect(near.notes.some((n) => n.includes('elastane at') && n.includes('Art. 20(3)'))).toBe(true);
+    // Every fibre named (Art. 9(1)): 5 % decides nothing, so no note for 6 % or 4 % elastane.
+    expect(contentLabel({ polyester: 0.94, elastane: 0.06 }, 'eu').notes.some((n) => n.includes('elastane at'))).toBe(false);
+    expect(contentLabel({ polyester: 0.96, elastane: 0.04 }, 'eu').notes.some((n) => n.includes('elastane at'))).toBe(false);
+    // Named at 6 % beside 'other fibres': named correctly on either side of 5 %.
+    const named = contentLabel({ polyester: 0.9, elastane: 0.06, polyamide: 0.04 }, 'eu', { otherFibres: true });
+    expect(named.notes.some((n) => n.includes('elastane at'))).toBe(false);
+    expect(named.notes.some((n) => n.includes('polyamide at'))).toBe(true);
+    const far = contentLabel({ polyester: 0.91, elastane: 0.09 }, 'eu', { otherFibres: true });
     expect(far.notes.some((n) => n.includes('elastane at'))).toBe(false);
+  });
+
+  it("'shown as 1 %' only for a line the rounding put at 0 % (largest remainder, common practice, no published source)", () => {
+    // 99.2 / 0.4 / 0.4: the one point left goes to elastane (tie, earlier line); polyamide rounds to 0 and is raised.
+    const a = contentLabel({ polyester: 0.992, elastane: 0.004, polyamide: 0.004 }, 'eu');
+    expect(a.text).toBe('98 % polyester, 1 % elastane, 1 % polyamide');
+    expect(a.notes.filter((n) => n.includes('shown as 1 %'))).toEqual([expect.stringContaining('polyamide')]);
+    // 98.8 / 0.6 / 0.6: the two points go to polyester and elastane; polyamide, above 0.5 %, still rounds to 0.
+    const b = contentLabel({ polyester: 0.988, elastane: 0.006, polyamide: 0.006 }, 'eu');
+    expect(b.text).toBe('98 % polyester, 1 % elastane, 1 % polyamide');
+    expect(b.notes.filter((n) => n.includes('shown as 1 %'))).toEqual([expect.stringContaining('polyamide')]);
   });
 
   it("'100 %' only for a product of one fibre (Art. 7(1)); cationic-dyeable polyester is still polyester", () => {
@@ -238,6 +272,39 @@ describe('contentLabel: US (16 CFR Part 303)', () => {
     expect(label.notes.some((n) => n.includes('nylon') && n.includes('303.43'))).toBe(true);
   });
 
+  it('no threshold note for a fibre named for its functional significance (its line does not change at 5 %)', () => {
+    const named = contentLabel({ polyamide: 0.96, elastane: 0.04 }, 'us');
+    expect(named.notes.some((n) => n.includes('spandex at') && n.includes('303.43'))).toBe(false);
+    const grouped = contentLabel({ polyamide: 0.96, elastane: 0.04 }, 'us', { functionalFibres: [] });
+    expect(grouped.notes.some((n) => n.includes('spandex at') && n.includes('303.43'))).toBe(true);
+  });
+
+  it("the functional-significance note gives 'stretch' as the reason only for an elastomeric fibre", () => {
+    const stretch = contentLabel({ polyamide: 0.96, elastane: 0.04 }, 'us');
+    expect(stretch.notes.join('\n')).toMatch(/spandex at 4\.0 % is under 5 % but named for its functional significance \(stretch\)/);
+    const wool = contentLabel({ polyamide: 0.96, wool: 0.04 }, 'us', { functionalFibres: ['wool'] });
+    expect(wool.text).toBe('96% nylon, 4% wool');
+    const note = wool.notes.find((n) => n.includes('wool at'));
+    expect(note).toMatch(/functional significance under 16 CFR 303\.3\(a\)/);
+    expect(note).not.toMatch(/stretch/);
+  });
+
+  it('viscose, modal and lyocell count together as rayon for the 5 % rule (§303.6; rayon family from memory)', () => {
+    const joined = contentLabel({ polyester: 0.94, viscose: 0.03, modal: 0.03 }, 'us');
+    expect(joined.text).toBe('94% polyester, 6% rayon');
+    expect([...(joined.lines[1]?.fibres ?? [])].sort()).toEqual(['modal', 'viscose']);
+    expect(joined.notes.join('\n')).toMatch(/labelled together as rayon/);
+    // One member under 5 %: the whole family is rayon (9 %), not "6% modal" beside an 'other fiber'.
+    expect(contentLabel({ polyester: 0.91, modal: 0.06, viscose: 0.03 }, 'us').text).toBe('91% polyester, 9% rayon');
+    expect(contentLabel({ polyester: 0.92, lyocell: 0.04, modal: 0.04 }, 'us').text).toBe('92% polyester, 8% rayon');
+    // Every member 5 % or more: each keeps its own permitted name.
+    expect(contentLabel({ polyester: 0.84, modal: 0.1, lyocell: 0.06 }, 'us').text).toBe('84% polyester, 10% modal, 6% lyocell');
+    // Together still under 5 %: 'other fiber'.
+    expect(contentLabel({ polyester: 0.96, viscose: 0.02, modal: 0.02 }, 'us').text).toBe('96% polyester, 4% other fiber');
+    // EU names stay apart (Annex I Nos 22, 25, 33).
+    expect(contentLabel({ polyester: 0.94, viscose: 0.03, modal: 0.03 }, 'eu').text).toBe('94 % polyester, 3 % modal, 3 % viscose');
+  });
+
   it("'100%' for one fibre (§303.27)", () => {
     const label = contentLabel({ polyamide: 1 }, 'us');
     expect(label.text).toBe('100% nylon');
@@ -245,8 +312,36 @@ describe('contentLabel: US (16 CFR Part 303)', () => {
   });
 });
 
+describe('contentLabel: a share exactly at a threshold, computed from grams', () => {
+  const pes = yarn('pes', 78, 'polyester');
+  const pa = yarn('pa', 78, 'polyamide');
+  const from = (polyesterGrams: number, polyamideGrams: number) =>
+    fibreContent({ yarnGrams: { pes: polyesterGrams, pa: polyamideGrams }, yarns: [pes, pa], method: 'nominal' });
+
+  it('32.3 g : 1.7 g (19:1) names the 5 % fibre in the US and group it in the EU', () => {
+    const s = from(19 * 1.7, 1.7);
+    // Precondition: the division lands just under 0.05, the case the comparison must survive.
+    expect(s.polyamide).toBeLessThan(0.05);
+    // §303.6: "5 per centum or more" is named (references.md §3).
+    expect(contentLabel(s, 'us').text).toBe('95% polyester, 5% nylon');
+    // Art. 9(2): "up to 5 %" may be 'other fibres' (references.md §2(b)).
+    expect(contentLabel(s, 'eu', { otherFibres: true }).text).toBe('95 % polyester, 5 % other fibres');
+  });
+
+  it('property: any grams in an exact 19:1 ratio give the same labels', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0.001, max: 5000, noNaN: true }), (grams) => {
+        const s = from(19 * grams, grams);
+        expect(contentLabel(s, 'us').text).toBe('95% polyester, 5% nylon');
+        expect(contentLabel(s, 'eu', { otherFibres: true }).text).toBe('95 % polyester, 5 % other fibres');
+      }),
+      { numRuns: 300 },
+    );
+  });
+});
+
 describe('contentLabel: properties', () => {
-  it('percentages sum to 100, lines descend (other last), every fibre is accounted for', () => {
+  it("percentages sum to 100, lines descend (EU 'other fibres' by its share, US 'other fiber(s)' last), every fibre is accounted for", () => {
     const fibre = fc.constantFrom(...fibreIds);
     fc.assert(
       fc.property(
@@ -256,12 +351,16 @@ describe('contentLabel: properties', () => {
         (shares, region, otherFibres) => {
           const label = contentLabel(shares as FibreShares, region, { otherFibres });
           expect(label.lines.reduce((s, l) => s + l.percent, 0)).toBe(100);
-          const named = label.lines.filter((l) => !l.other);
-          for (let i = 1; i < named.length; i++) {
-            expect((named[i - 1] as { exactPercent: number }).exactPercent).toBeGreaterThanOrEqual((named[i] as { exactPercent: number }).exactPercent);
+          // EU Art. 9(1): every line, 'other fibres' included, in descending order.
+          // US §303.42(a): named fibres by predominance, then 'other fiber(s)'.
+          const ordered = region === 'eu' ? label.lines : label.lines.filter((l) => !l.other);
+          for (let i = 1; i < ordered.length; i++) {
+            const [before, after] = [ordered[i - 1] as LabelLine, ordered[i] as LabelLine];
+            expect(before.exactPercent).toBeGreaterThanOrEqual(after.exactPercent - 1e-7);
+            expect(before.percent).toBeGreaterThanOrEqual(after.percent);
           }
           const otherAt = label.lines.findIndex((l) => l.other);
-          if (otherAt >= 0) expect(otherAt).toBe(label.lines.length - 1);
+          if (otherAt >= 0 && region === 'us') expect(otherAt).toBe(label.lines.length - 1);
           expect(label.lines.flatMap((l) => l.fibres).sort()).toEqual(Object.keys(shares).sort());
           expect(label.lines.every((l) => l.percent >= 1)).toBe(true);
         },
@@ -365,7 +464,8 @@ describe('worked label cases, from the stitch raster to the label', () => {
     const us = contentLabel(s, 'us');
     expect(us.text).toBe('54% polyester, 43% nylon, 3% spandex');
     expect(us.notes.join('\n')).toMatch(/functional significance/);
-    expect(us.notes.join('\n')).toMatch(/303\.43/); // 3.05 % is within 3 points of 5 %
+    // 3.05 % is within 3 points of 5 %, but spandex named for its function keeps its line either side.
+    expect(us.notes.some((n) => n.includes('spandex at') && n.includes('303.43'))).toBe(false);
     expect(contentLabel(s, 'eu').text).toBe('54 % polyester, 43 % polyamide, 3 % elastane');
   });
 });

@@ -13,6 +13,8 @@ import {
   checkYarnCount,
   checkZoneRepeats,
   defaultRuleLimits,
+  describeRuleLimits,
+  resolveRuleLimits,
   runRules,
   textureMap,
   textureUsages,
@@ -167,6 +169,29 @@ describe('checkTuckStacks', () => {
     const never = texture('never', ['tk', 'tk']);
     const found = checkTuckStacks(usagesOf([panel('front', [], 'never')], [never]), defaultRuleLimits);
     expect(found[0]?.message).toMatch(/never knits/);
+  });
+});
+
+describe('studio limits', () => {
+  // The studio's own limits replace the defaults key by key; the figures are the studio's (invented here).
+  it('takes the keys a studio set and says where each limit comes from', () => {
+    expect(resolveRuleLimits(null)).toEqual({ limits: defaultRuleLimits, source: { maxFloatMm: 'default', maxTuckStack: 'default' } });
+    const set = resolveRuleLimits({ maxFloatMm: 8 });
+    expect(set).toEqual({ limits: { maxFloatMm: 8, maxTuckStack: defaultRuleLimits.maxTuckStack }, source: { maxFloatMm: 'studio', maxTuckStack: 'default' } });
+    expect(describeRuleLimits(set)).toBe(`floats up to 8 mm (studio setting), ${defaultRuleLimits.maxTuckStack} stacked tucks (default)`);
+    // Stored values that are not a positive number fall back to the default.
+    expect(resolveRuleLimits({ maxFloatMm: -1, maxTuckStack: 'x' }).source).toEqual({ maxFloatMm: 'default', maxTuckStack: 'default' });
+  });
+
+  it('runRules checks floats and tuck stacks against the limits it is given', () => {
+    // 7 misses at E28 = 6.35 mm (pitch 25.4 / 28 mm, references.md §7b): over the 6 mm default, within 7 mm.
+    const floaty = texture('floaty', ['kmmmmmmm']);
+    const five = texture('t5', ['tk', 'tk', 'tk', 'tk', 'tk', 'kk']);
+    const panels = [panel('front', [zone('a', 'floaty', 0, 0, 64, 64), zone('b', 't5', 64, 0, 104, 60)])];
+    const input = { panels, textures: [jersey, floaty, five], yarns, machine: seamless };
+    const rules = (f: ReturnType<typeof runRules>) => f.map((x) => x.rule).filter((r) => r === 'float-length' || r === 'tuck-stack').sort();
+    expect(rules(runRules(input))).toEqual(['float-length', 'tuck-stack']);
+    expect(rules(runRules({ ...input, limits: resolveRuleLimits({ maxFloatMm: 7, maxTuckStack: 5 }).limits }))).toEqual([]);
   });
 });
 

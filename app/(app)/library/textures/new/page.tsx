@@ -3,6 +3,7 @@ import { redirect } from 'next/navigation';
 import { currentUser } from '@/lib/auth/authorize';
 import { can } from '@/lib/auth/roles';
 import { listYarns } from '@/lib/db/yarns';
+import { studioRuleLimits } from '@/lib/db/rule-limits';
 import { LibraryCrumbs } from '@/components/library/library-crumbs';
 import { TextureEditor } from '@/components/library/texture-editor';
 
@@ -12,11 +13,11 @@ export default async function NewTexturePage() {
   const user = await currentUser();
   if (!user) redirect('/sign-in');
   if (!can(user.role, 'library:edit')) redirect('/library');
-  const yarns = await listYarns(user);
+  const [yarns, ruleLimits] = await Promise.all([listYarns(user), studioRuleLimits(user.studioId)]);
   return (
     <>
       <LibraryCrumbs tab="textures" current="New texture" />
-      <TextureEditor yarns={yarns} canEdit />
+      <TextureEditor yarns={yarns} canEdit ruleLimits={ruleLimits} />
     </>
   );
 }

@@ -5,6 +5,7 @@ import { listStyleTextures, listTextures, yarnsOfTextures } from '@/lib/db/textu
 import { yarnForViewer } from '@/lib/db/yarns';
 import { listTrims } from '@/lib/db/trims';
 import { gradedSizeSpec } from '@/lib/db/fit';
+import { studioRuleLimits } from '@/lib/db/rule-limits';
 import { trimKindLabels } from '@/lib/validations/library';
 import { BodyMapEditor } from '@/components/body-map/body-map-editor';
 import { notFound } from 'next/navigation';
@@ -14,8 +15,8 @@ export const metadata: Metadata = { title: 'Body map' };
 
 export default async function BodyMapPage({ params }: { params: Promise<{ id: string }> }) {
   const { user, style } = await workingCopyStyle((await params).id);
-  const [map, styleTextures, styleTrims, spec] = await Promise.all([
-    loadBodyMap(user, style.id), listStyleTextures(user, style.id), listTrims(user, style.id), gradedSizeSpec(style),
+  const [map, styleTextures, styleTrims, spec, ruleLimits] = await Promise.all([
+    loadBodyMap(user, style.id), listStyleTextures(user, style.id), listTrims(user, style.id), gradedSizeSpec(style), studioRuleLimits(user.studioId),
   ]);
   if (!map) notFound();
   const panelIdOf = new Map(map.panels.map((p) => [p.kind, p.id]));
@@ -36,6 +37,7 @@ export default async function BodyMapPage({ params }: { params: Promise<{ id: st
       textures={textures}
       yarns={yarns}
       machine={machine}
+      ruleLimits={ruleLimits}
       readOnly={!can(user.role, 'style:edit')}
       baseSize={style.sizes.base}
       sizes={style.sizes.labels}

@@ -1,9 +1,9 @@
 import { NextResponse } from 'next/server';
-import { route, parseBody } from '@/lib/api/handler';
+import { route, parseBody, parseQuery } from '@/lib/api/handler';
 import { authorize } from '@/lib/auth/authorize';
 import { notFound } from '@/lib/api/errors';
 import { archiveYarn, findYarn, updateYarn } from '@/lib/db/yarns';
-import { idParamSchema, yarnPatchSchema } from '@/lib/validations/library';
+import { archiveQuerySchema, idParamSchema, yarnPatchSchema } from '@/lib/validations/library';
 
 type Params = { id: string };
 
@@ -22,10 +22,11 @@ export const PATCH = route<Params>(async (req, params) => {
   return NextResponse.json({ yarn: await updateYarn(user, id, patch) });
 });
 
-/** Archives the yarn (kept, hidden from the library). */
-export const DELETE = route<Params>(async (_req, params) => {
+/** Archives the yarn (kept, hidden from the library) when `?version=` is the version you saw; otherwise 409. */
+export const DELETE = route<Params>(async (req, params) => {
   const user = await authorize('library:edit');
   const { id } = idParamSchema.parse(params);
-  await archiveYarn(user, id);
+  const { version } = parseQuery(req, archiveQuerySchema);
+  await archiveYarn(user, id, version);
   return NextResponse.json({ ok: true });
 });
