@@ -154,7 +154,12 @@ function Rulers({ panel, layout, unit }: { panel: Panel; layout: PanelLayout; un
 
 export default function BodyMapCanvas({ editor, state, textures, yarns, fill, rulerUnit, highlight, yarnColours, colourOf, trims }: CanvasProps) {
   const box = useRef<HTMLDivElement>(null);
+  const stageRef = useRef<Konva.Stage>(null);
+  /** Stops following the live press on the window (set while a press that began on the stage is down). */
+  const stopFollowing = useRef<(() => void) | null>(null);
   const [size, setSize] = useState({ w: 800, h: 600 });
+
+  useEffect(() => () => stopFollowing.current?.(), []);
 
   useEffect(() => {
     const el = box.current;
@@ -183,6 +188,33 @@ export default function BodyMapCanvas({ editor, state, textures, yarns, fill, ru
     const ev = e.evt as PointerEvent;
     return { screen: { x: pos.x, y: pos.y }, button: ev.button, shift: ev.shiftKey, alt: ev.altKey, ctrl: ev.ctrlKey, meta: ev.metaKey };
   };
+  // A press that began on the stage is followed on the window until it is released or cancelled,
+  // so a drag let go off the canvas still ends (and autosave is no longer held back by it).
+  const followPress = (pointerId: number) => {
+    stopFollowing.current?.();
+    const fromWindow = (ev: PointerEvent) => {
+      const stage = stageRef.current;
+      stage?.setPointersPositions(ev);
+      const pos = stage?.getPointerPosition() ?? { x: 0, y: 0 };
+      return { screen: { x: pos.x, y: pos.y }, button: ev.button, shift: ev.shiftKey, alt: ev.altKey, ctrl: ev.ctrlKey, meta: ev.metaKey };
+    };
+    const move = (ev: PointerEvent) => { if (ev.pointerId === pointerId) editor.pointerMove(fromWindow(ev)); };
+    const end = (ev: PointerEvent) => {
+      if (ev.pointerId !== pointerId) return;
+      stop();
+      editor.pointerUp(fromWindow(ev));
+    };
+    const stop = () => {
+      window.removeEventListener('pointermove', move);
+      window.removeEventListener('pointerup', end);
+      window.removeEventListener('pointercancel', end);
+      if (stopFollowing.current === stop) stopFollowing.current = null;
+    };
+    window.addEventListener('pointermove', move);
+    window.addEventListener('pointerup', end);
+    window.addEventListener('pointercancel', end);
+    stopFollowing.current = stop;
+  };
 
   const tool = state.tool;
   const cursor =
@@ -202,11 +234,12 @@ export default function BodyMapCanvas({ editor, state, textures, yarns, fill, ru
       data-panels={JSON.stringify(layouts.map((l) => ({ id: l.panelId, x: Math.round(l.origin.x), y: Math.round(l.origin.y), w: Math.round(l.widthPx), h: Math.round(l.heightPx) })))}
     >
       <Stage
+        ref={stageRef}
         width={size.w}
         height={size.h}
-        onPointerDown={(e) => { box.current?.focus(); editor.pointerDown(pointer(e)); }}
-        onPointerMove={(e) => editor.pointerMove(pointer(e))}
-        onPointerUp={(e) => editor.pointerUp(pointer(e))}
+        onPointerDown={(e) => { box.current?.focus(); followPress(e.evt.pointerId); editor.pointerDown(pointer(e)); }}
+        // While a press is followed on the window, its moves and release arrive from there.
+        onPointerMove={(e) => { if (!stopFollowing.current) editor.pointerMove(pointer(e)); }}
         onWheel={(e) => {
           e.evt.preventDefault();
           const pos = e.target.getStage()?.getPointerPosition() ?? { x: 0, y: 0 };

@@ -2,17 +2,20 @@
 
 import dynamic from 'next/dynamic';
 import { useEffect, useMemo, useState, useSyncExternalStore } from 'react';
-import { Editor, type TextureLookup } from '@/lib/editor';
+import { Editor, findPanel, findZone, polygonBounds, type TextureLookup } from '@/lib/editor';
 import type { Panel } from '@/lib/knit/panel';
 import type { Texture } from '@/lib/knit/texture';
 import type { Yarn } from '@/lib/knit/yarn';
 import type { LibraryTexture } from '@/lib/db/textures';
 import { summariseBodyMap, type BodyMapSummary } from '@/lib/knit/summary';
+import { consumptionBySize, type GarmentConsumption } from '@/lib/knit/consumption';
+import type { GarmentKind } from '@/lib/knit/outline';
+import { defaultWasteAllowance, gradedSizeStitches, type GradedPoints, type SizeBasis } from '@/lib/knit/yarn-calculator';
 import { runRules, type RuleFinding, type StudioRuleLimits } from '@/lib/rules';
 import { flatColourForTexture, flatColoursForTextures } from '@/lib/knit/render';
 import { useAutosave } from './use-autosave';
 import { Toolbar } from './toolbar';
-import { SaveState } from './save-state';
+import { RestoreOffer, SaveState } from './save-state';
 import { ZonePanel } from './zone-panel';
 import { SummaryPanel } from './summary-panel';
 import { HelpPanel } from './help-panel';
@@ -35,6 +38,10 @@ export interface BodyMapEditorProps {
   ruleLimits: StudioRuleLimits;
   readOnly: boolean;
   baseSize: string;
+  /** The style's sizes, in order, the garment, and the graded size spec (null when none is saved): grams per size. */
+  sizes: readonly string[];
+  garment: GarmentKind;
+  graded: GradedPoints | null;
   /** The style's trims to show over the map, by panel id. */
   trims?: readonly { id: string; panelId: string; box: { x: number; y: number; width: number; height: number }; label: string }[];
 }
@@ -50,7 +57,7 @@ function textureLookup(textures: readonly Texture[]): TextureLookup {
   return out;
 }
 
-export function BodyMapEditor({ styleId, initial, textures, yarns, machine, ruleLimits, readOnly, baseSize, trims }: BodyMapEditorProps) {
+export function BodyMapEditor({ styleId, initial, textures, yarns, machine, ruleLimits, readOnly, baseSize, sizes, garment, graded, trims }: BodyMapEditorProps) {
   const [editor] = useState(
     () =>
       new Editor({
@@ -61,7 +68,7 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, rule
       }),
   );
   const state = useSyncExternalStore(editor.subscribe, editor.getState, editor.getState);
-  const { status, reloadLatest, keepCopy, overwrite } = useAutosave(editor, state, styleId);
+  const { status, reloadLatest, keepCopy, overwrite, backupOffer, restoreBackup, discardBackup } = useAutosave(editor, state, styleId);
   const [fill, setFill] = useState<'texture' | 'flat'>('texture');
   const [rulerUnit, setRulerUnit] = useState<RulerUnit>('stitches');
   const [highlight, setHighlight] = useState<{ panelId: string; needle?: number; course?: number } | null>(null);
@@ -84,6 +91,14 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, rule
     lastSummary.set(editor, { panels: state.doc.panels, summary: s });
     return s;
   }, [state.doc.panels, textureMap, yarns, machine.gauge, editor]);
+  // Grams for the size picked in the summary: the drawn base size, or its stitches graded as the yarn calculator grades them.
+  const [size, setSize] = useState(baseSize);
+  const sizeGrams = useMemo((): { basis: SizeBasis; consumption: GarmentConsumption | null } => {
+    if (size === baseSize || !summary.consumption) return { basis: 'drawn', consumption: summary.consumption };
+    const g = gradedSizeStitches({ garment, panels: state.doc.panels, rasters: summary.rasters, baseSize, size, graded });
+    if (g.basis !== 'graded' || !g.panels) return { basis: 'base-grams', consumption: summary.consumption };
+    return { basis: 'graded', consumption: consumptionBySize({ sizes: [{ size, panels: g.panels }], textures: textureMap, yarns, gauge: machine.gauge, wasteAllowance: defaultWasteAllowance })[size] ?? null };
+  }, [size, baseSize, summary, garment, state.doc.panels, graded, textureMap, yarns, machine.gauge]);
   const findings: RuleFinding[] = useMemo(() => {
     try {
       return runRules({ panels: state.doc.panels, textures: textureMap, yarns, machine, limits: ruleLimits.limits, rasters: summary.rasters });
@@ -103,13 +118,26 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, rule
       if (used) e.preventDefault();
     };
     const up = (e: KeyboardEvent) => { editor.keyUp({ key: e.key }); };
+    // Space let go while the window was in the background never sends its keyup.
+    const blur = () => editor.holdSpace(false);
     window.addEventListener('keydown', down);
     window.addEventListener('keyup', up);
-    return () => { window.removeEventListener('keydown', down); window.removeEventListener('keyup', up); };
+    window.addEventListener('blur', blur);
+    return () => { window.removeEventListener('keydown', down); window.removeEventListener('keyup', up); window.removeEventListener('blur', blur); };
   }, [editor]);
 
   const onFinding = (f: RuleFinding) => {
     if (f.where.zoneId) editor.select([f.where.zoneId]);
+    const doc = editor.getState().doc;
+    const panel = f.where.panelId ? findPanel(doc, f.where.panelId) : null;
+    if (panel) {
+      // The finding's stitch, else its zone, else the whole panel.
+      const zone = f.where.zoneId ? findZone(doc, f.where.zoneId) : null;
+      const place = f.where.needle !== undefined || f.where.course !== undefined
+        ? { x: f.where.needle ?? panel.widthNeedles / 2, y: f.where.course ?? panel.heightCourses / 2 }
+        : zone ? polygonBounds(zone.zone.polygon) : { minX: 0, minY: 0, maxX: panel.widthNeedles, maxY: panel.heightCourses };
+      editor.centreOn(panel.id, place);
+    }
     if (f.where.panelId) {
       setHighlight({ panelId: f.where.panelId, needle: f.where.needle, course: f.where.course });
       setTimeout(() => setHighlight(null), 2500);
@@ -132,13 +160,15 @@ export function BodyMapEditor({ styleId, initial, textures, yarns, machine, rule
           <BodyMapCanvas editor={editor} state={state} textures={textureMap} yarns={yarns} fill={fill} rulerUnit={rulerUnit} highlight={highlight} colourOf={colourOf} trims={trims} />
           {state.helpOpen ? <HelpPanel editor={editor} /> : null}
           <div className="absolute bottom-3 right-3 z-10 max-w-[90%] rounded-md border border-rule bg-panel/95 shadow-sm">
+            {backupOffer ? <RestoreOffer savedAt={backupOffer.savedAt} onRestore={restoreBackup} onDiscard={discardBackup} /> : null}
             <SaveState status={status} onReload={reloadLatest} onKeepCopy={keepCopy} onOverwrite={overwrite} />
           </div>
         </div>
       </div>
       <aside className="flex min-h-0 flex-col gap-4 overflow-y-auto pr-1">
         <ZonePanel editor={editor} state={state} textures={textures} summary={summary} colourOf={colourOf} styleId={styleId} />
-        <SummaryPanel summary={summary} findings={findings} ruleLimits={ruleLimits} textures={textureMap} yarns={yarns} onFinding={onFinding} baseSize={baseSize} colourOf={colourOf} />
+        <SummaryPanel summary={summary} findings={findings} ruleLimits={ruleLimits} textures={textureMap} yarns={yarns} onFinding={onFinding} baseSize={baseSize} colourOf={colourOf}
+          sizes={sizes} size={size} onSize={setSize} sizeGrams={sizeGrams} />
       </aside>
     </div>
   );

@@ -38,3 +38,18 @@ export function SaveState({ status, onReload, onKeepCopy, onOverwrite }: { statu
       );
   }
 }
+
+/** The offer to bring back work kept in this browser that never reached the server. */
+export function RestoreOffer({ savedAt, onRestore, onDiscard }: { savedAt: number; onRestore: () => void; onDiscard: () => void }) {
+  const at = new Date(savedAt);
+  const when = at.toLocaleDateString() === new Date().toLocaleDateString()
+    ? at.toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })
+    : at.toLocaleString([], { dateStyle: 'medium', timeStyle: 'short' });
+  return (
+    <div data-testid="restore-offer" role="alert" className="flex flex-wrap items-center gap-2 border-b border-rule bg-ochre-50 px-2 py-1 text-xs text-ochre-700">
+      Unsaved work from {when} is kept in this browser.
+      <button type="button" className="rounded border border-ochre-500/40 bg-panel px-1.5 py-0.5" onClick={onRestore}>Restore unsaved work</button>
+      <button type="button" className="rounded border border-ochre-500/40 bg-panel px-1.5 py-0.5" onClick={onDiscard}>Discard</button>
+    </div>
+  );
+}

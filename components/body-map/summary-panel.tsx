@@ -5,6 +5,8 @@ import type { BodyMapSummary } from '@/lib/knit/summary';
 import type { Texture } from '@/lib/knit/texture';
 import type { Yarn } from '@/lib/knit/yarn';
 import { describeRuleLimits, type RuleFinding, type StudioRuleLimits } from '@/lib/rules';
+import type { GarmentConsumption } from '@/lib/knit/consumption';
+import type { SizeBasis } from '@/lib/knit/yarn-calculator';
 import { labelCaution } from '@/lib/knit/content';
 
 const int = new Intl.NumberFormat('en-GB');
@@ -22,9 +24,12 @@ function Section({ title, children, aside }: { title: string; children: React.Re
   );
 }
 
-export function SummaryPanel({ summary, findings, ruleLimits, textures, yarns, onFinding, baseSize, colourOf }: {
+export function SummaryPanel({ summary, findings, ruleLimits, textures, yarns, onFinding, baseSize, colourOf, sizes, size, onSize, sizeGrams }: {
   summary: BodyMapSummary; findings: RuleFinding[]; ruleLimits: StudioRuleLimits; textures: ReadonlyMap<string, Texture>; yarns: readonly Yarn[];
   onFinding: (f: RuleFinding) => void; baseSize: string; colourOf: (id: string) => string;
+  /** The style's sizes and the one whose grams are shown, with its grams and how they were found. */
+  sizes: readonly string[]; size: string; onSize: (size: string) => void;
+  sizeGrams: { basis: SizeBasis; consumption: GarmentConsumption | null };
 }) {
   const [region, setRegion] = useState<'eu' | 'us'>('eu');
   const yarnName = (id: string) => yarns.find((y) => y.id === id)?.name ?? id;
@@ -34,6 +39,15 @@ export function SummaryPanel({ summary, findings, ruleLimits, textures, yarns, o
     <>
       <Section title="Stitches and area per texture" aside={<span className="text-xs text-ink-faint">kept · cut away</span>}>
         <table className="w-full text-xs" data-testid="texture-totals">
+          <thead className="text-ink-faint">
+            <tr>
+              <th className="py-1 text-left font-normal">Texture</th>
+              <th className="text-right font-normal">kept st.</th>
+              <th className="pl-2 text-right font-normal">cut away st.</th>
+              <th className="pl-2 text-right font-normal">kept</th>
+              <th className="pl-2 text-right font-normal">cut away</th>
+            </tr>
+          </thead>
           <tbody>
             {summary.textures.map((t) => (
               <tr key={t.textureId} className="border-b border-rule/60 last:border-0">
@@ -44,20 +58,38 @@ export function SummaryPanel({ summary, findings, ruleLimits, textures, yarns, o
                 <td className="figures py-1 text-right">{int.format(t.inside)}</td>
                 <td className="figures py-1 pl-2 text-right text-ink-faint">{int.format(t.outside)}</td>
                 <td className="figures py-1 pl-2 text-right">{g1.format(t.insideCm2 / 100)} dm²</td>
+                <td className="figures py-1 pl-2 text-right text-ink-faint">{g1.format(t.outsideCm2 / 100)} dm²</td>
               </tr>
             ))}
           </tbody>
         </table>
       </Section>
 
-      <Section title={`Yarn per garment · size ${baseSize}`} aside={<span className="text-xs text-ink-faint">5 % waste allowance</span>}>
-        {summary.consumption ? (
-          <table className="w-full text-xs" data-testid="yarn-grams">
+      <Section
+        title="Yarn per garment"
+        aside={
+          <label className="flex items-center gap-1.5 text-xs text-ink-faint">
+            Size
+            <select aria-label="Size for the yarn grams" className="h-6 rounded border border-rule bg-panel px-1 text-xs text-ink" value={size} onChange={(e) => onSize(e.target.value)}>
+              {sizes.map((s) => <option key={s} value={s}>{s === baseSize ? `${s} (drawn)` : s}</option>)}
+            </select>
+            · 5 % waste allowance
+          </label>
+        }
+      >
+        {sizeGrams.consumption ? (
+          <>
+          {sizeGrams.basis === 'graded' ? (
+            <p className="mb-1 text-[11px] text-ink-soft" data-testid="size-basis">Size {size}: the map drawn at {baseSize}, each panel graded by the size spec.</p>
+          ) : sizeGrams.basis === 'base-grams' ? (
+            <p className="mb-1 text-[11px] text-ochre-700" data-testid="size-basis">≈ No graded size spec for {size} yet (Fit section): size {baseSize}&apos;s grams.</p>
+          ) : null}
+          <table className="w-full text-xs" data-testid="yarn-grams" data-size={size}>
             <thead className="text-ink-faint">
               <tr><th className="py-1 text-left font-normal">Yarn</th><th className="text-right font-normal">kept g</th><th className="text-right font-normal">knitted g</th><th className="text-right font-normal">to buy g</th></tr>
             </thead>
             <tbody>
-              {Object.entries(summary.consumption.yarns).map(([id, y]) => (
+              {Object.entries(sizeGrams.consumption.yarns).map(([id, y]) => (
                 <tr key={id} className="border-t border-rule/60">
                   <td className="py-1 pr-2">{yarnName(id)}</td>
                   <td className="figures text-right">{g1.format(y.keptGrams)}</td>
@@ -67,12 +99,13 @@ export function SummaryPanel({ summary, findings, ruleLimits, textures, yarns, o
               ))}
               <tr className="border-t border-rule font-semibold">
                 <td className="py-1">Garment</td>
-                <td className="figures text-right">{g1.format(summary.consumption.keptGrams)}</td>
-                <td className="figures text-right">{g1.format(summary.consumption.knittedGrams)}</td>
-                <td className="figures text-right">{g1.format(summary.consumption.grossGrams)}</td>
+                <td className="figures text-right">{g1.format(sizeGrams.consumption.keptGrams)}</td>
+                <td className="figures text-right">{g1.format(sizeGrams.consumption.knittedGrams)}</td>
+                <td className="figures text-right">{g1.format(sizeGrams.consumption.grossGrams)}</td>
               </tr>
             </tbody>
           </table>
+          </>
         ) : (
           <p className="text-xs text-ink-soft">{summary.problems[0] ?? 'Assign textures to see the yarn.'}</p>
         )}

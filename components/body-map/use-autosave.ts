@@ -1,7 +1,7 @@
 'use client';
 
 import { useCallback, useEffect, useRef, useState } from 'react';
-import type { Editor, EditorState } from '@/lib/editor';
+import { commands, type Editor, type EditorState } from '@/lib/editor';
 import type { Panel } from '@/lib/knit/panel';
 import { api, ApiError } from '@/lib/api/client';
 
@@ -15,11 +15,28 @@ export type SaveStatus =
   | { kind: 'read-only' };
 
 const DEBOUNCE_MS = 1200;
+/** During a drag the local backup is written at most this often (and once more when it ends). */
+const BACKUP_DURING_DRAG_MS = 500;
 const backupKey = (styleId: string) => `needlemap:body-map-backup:${styleId}`;
+
+/** A local copy of unsaved work, as written to localStorage. */
+export interface BodyMapBackup { savedAt: number; version: number; panels: Panel[] }
+
+function readBackup(styleId: string): BodyMapBackup | null {
+  try {
+    const raw = window.localStorage.getItem(backupKey(styleId));
+    const b = raw ? (JSON.parse(raw) as Partial<BodyMapBackup>) : null;
+    if (!b || typeof b.savedAt !== 'number' || typeof b.version !== 'number' || !Array.isArray(b.panels)) return null;
+    return { savedAt: b.savedAt, version: b.version, panels: b.panels };
+  } catch {
+    return null;
+  }
+}
 
 /**
  * Saves the body map shortly after edits (never during a drag), retries with backoff while the
- * network or the server is down, stops at a conflict (409) and keeps a local backup of unsaved work.
+ * network or the server is down, stops at a conflict (409) and keeps a local backup of unsaved work,
+ * offered back when the map is opened again.
  */
 export function useAutosave(editor: Editor, state: EditorState, styleId: string) {
   const [status, setStatus] = useState<SaveStatus>(state.readOnly ? { kind: 'read-only' } : { kind: 'saved', at: null });
@@ -31,6 +48,10 @@ export function useAutosave(editor: Editor, state: EditorState, styleId: string)
   const saveRef = useRef<() => Promise<void>>(async () => {});
 
   const dirty = state.revision !== state.savedRevision;
+  // A backup found on opening that differs from the server's map, offered to restore.
+  const [offer, setOffer] = useState<BodyMapBackup | null>(null);
+  const backupTimer = useRef<ReturnType<typeof setTimeout> | null>(null);
+  const lastBackupAt = useRef(0);
 
   const save = useCallback(async () => {
     if (inFlight.current || stopped.current) return;
@@ -73,19 +94,68 @@ export function useAutosave(editor: Editor, state: EditorState, styleId: string)
   }, [editor, styleId]);
   useEffect(() => { saveRef.current = save; }, [save]);
 
-  // Schedule a save after each change (and keep a local backup of the unsaved document).
-  useEffect(() => {
-    if (state.readOnly || stopped.current || !dirty) return;
+  const writeBackup = useCallback(() => {
+    const s = editor.getState();
+    if (s.readOnly || stopped.current || s.revision === s.savedRevision) return;
+    lastBackupAt.current = Date.now();
     try {
-      window.localStorage.setItem(backupKey(styleId), JSON.stringify({ savedAt: Date.now(), version: state.doc.version, panels: state.doc.panels }));
+      window.localStorage.setItem(backupKey(styleId), JSON.stringify({ savedAt: lastBackupAt.current, version: s.doc.version, panels: s.doc.panels }));
     } catch {
       /* storage full or disabled: the server save still runs */
     }
+  }, [editor, styleId]);
+
+  // Keep a local backup of the unsaved document: at once after an edit, at most every 500 ms during a drag, and when the drag ends.
+  useEffect(() => {
+    if (state.readOnly || stopped.current || !dirty) return;
+    if (!state.gesture) {
+      if (backupTimer.current) { clearTimeout(backupTimer.current); backupTimer.current = null; }
+      writeBackup();
+    } else if (!backupTimer.current) {
+      backupTimer.current = setTimeout(() => { backupTimer.current = null; writeBackup(); }, Math.max(0, BACKUP_DURING_DRAG_MS - (Date.now() - lastBackupAt.current)));
+    }
+  }, [state.revision, state.gesture, dirty, state.readOnly, writeBackup]);
+  useEffect(() => () => { if (backupTimer.current) clearTimeout(backupTimer.current); }, []);
+
+  // Schedule a save after each change.
+  useEffect(() => {
+    if (state.readOnly || stopped.current || !dirty) return;
     setStatus((st) => (st.kind === 'retrying' || st.kind === 'saving' ? st : { kind: 'unsaved' }));
     if (timer.current) clearTimeout(timer.current);
     timer.current = setTimeout(() => void save(), attempt.current > 0 ? 500 : DEBOUNCE_MS);
     return () => { if (timer.current) clearTimeout(timer.current); };
   }, [state.revision, state.gesture, dirty, state.readOnly, state.doc, save, styleId]);
+
+  // On opening: a backup of work that never reached the server, based on this version or an older one, is offered back.
+  useEffect(() => {
+    const s = editor.getState();
+    if (s.readOnly) return;
+    const b = readBackup(styleId);
+    if (!b || b.version > s.doc.version) return;
+    const restored = commands.restorePanels(s.doc, b.panels);
+    // Panels that no longer match (the garment changed) are left in storage, not offered.
+    if (!restored) return;
+    if (restored === s.doc) { window.localStorage.removeItem(backupKey(styleId)); return; }
+    // Shown after the first paint, so the server-rendered page and the first client render agree.
+    const shown = setTimeout(() => setOffer(b), 0);
+    return () => clearTimeout(shown);
+  }, [editor, styleId]);
+
+  /** Puts the offered backup in place as an undoable edit; it autosaves, at the version it was based on (a newer map gets the conflict). */
+  const restoreBackup = useCallback(() => {
+    if (!offer) return;
+    setOffer(null);
+    if (!editor.restorePanels(offer.panels)) return;
+    const s = editor.getState();
+    if (offer.version < s.doc.version) editor.markSaved(s.savedRevision, offer.version);
+  }, [editor, offer]);
+
+  const discardBackup = useCallback(() => {
+    if (!offer) return;
+    setOffer(null);
+    // Only the copy that was offered: edits made since wrote a backup of their own.
+    if (readBackup(styleId)?.savedAt === offer.savedAt) window.localStorage.removeItem(backupKey(styleId));
+  }, [offer, styleId]);
 
   // Warn before leaving with unsaved work.
   useEffect(() => {
@@ -133,5 +203,5 @@ export function useAutosave(editor: Editor, state: EditorState, styleId: string)
     await save();
   }, [editor, save, styleId]);
 
-  return { status, reloadLatest, keepCopy, overwrite, saveNow: save };
+  return { status, reloadLatest, keepCopy, overwrite, saveNow: save, backupOffer: offer, restoreBackup, discardBackup };
 }

@@ -29,7 +29,7 @@ export function ZonePanel({ editor, state, textures, summary, colourOf, styleId 
           const raster = summary.rasters.get(panel.id);
           return (
             <div key={panel.id} className="border-b border-rule/70 last:border-0">
-              <div className="flex items-center justify-between gap-2 bg-paper/60 px-3 py-1 text-xs font-medium text-ink-soft">
+              <div className="flex flex-wrap items-center justify-between gap-x-2 gap-y-1 bg-paper/60 px-3 py-1 text-xs font-medium text-ink-soft">
                 <span>{panel.name}</span>
                 <span className="ml-auto figures text-ink-faint">{raster ? `${fmt.format(raster.inside)} st. kept` : ''}</span>
                 {!ro ? <OutlineUpload editor={editor} panel={panel} styleId={styleId} /> : null}
@@ -115,7 +115,8 @@ function ZoneInspector({ zone, editor, textures, readOnly }: { zone: Zone; edito
 function OutlineUpload({ editor, panel, styleId }: { editor: Editor; panel: Panel; styleId: string }) {
   const [error, setError] = useState<string | null>(null);
   return (
-    <label className="cursor-pointer rounded border border-rule bg-panel px-1.5 py-0.5 font-normal text-ink-soft hover:text-ink" title={error ?? 'Replace the cut lines with the outline of an SVG drawing'}>
+    <>
+    <label className="cursor-pointer rounded border border-rule bg-panel px-1.5 py-0.5 font-normal text-ink-soft hover:text-ink" title="Replace the cut lines with the outline of an SVG drawing">
       {error ? <span className="text-madder-700">Outline refused</span> : 'Outline from SVG…'}
       <input
         type="file"
@@ -140,5 +141,8 @@ function OutlineUpload({ editor, panel, styleId }: { editor: Editor; panel: Pane
         }}
       />
     </label>
+    {/* On a line of its own under the panel's name, read out when it appears. */}
+    {error ? <p role="alert" className="basis-full font-normal text-madder-700">{panel.name}: {error}</p> : null}
+    </>
   );
 }

@@ -7,11 +7,12 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { z } from 'zod';
 import {
-  constructionLabels, constructions, garmentTypeLabels, garmentTypes, styleCreateSchema, styleStatuses, styleStatusLabels,
+  constructionLabels, constructions, garmentTypeLabels, garmentTypes, sleeveStyleLabels, styleCreateSchema, styleStatuses, styleStatusLabels,
   type StyleCreate,
 } from '@/lib/validations/style';
 import type { Style } from '@/lib/db/styles';
 import { cylinderNeedles } from '@/lib/fit/needles';
+import { sleeveStyles } from '@/lib/knit/outline';
 import { api, ApiError } from '@/lib/api/client';
 import { Field, Input, Select } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
@@ -104,6 +105,16 @@ export function StyleForm({ style, readOnly = false }: { style?: Style; readOnly
       ? [{ id: style.clientId, name: style.clientName ?? '' }]
       : [];
 
+  const sleeveField = (
+    <Field label="Sleeves" error={err('machine.sleeveStyle')} hint="Shapes the generated outlines until the body map is first saved">
+      {(id) => (
+        <Select id={id} {...register('machine.sleeveStyle', { setValueAs: (v) => v || undefined })}>
+          {sleeveStyles.map((k) => <option key={k} value={k}>{sleeveStyleLabels[k]}</option>)}
+        </Select>
+      )}
+    </Field>
+  );
+
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-6">
       {serverError ? <Notice tone="error">{serverError}</Notice> : null}
@@ -150,6 +161,7 @@ export function StyleForm({ style, readOnly = false }: { style?: Style; readOnly
             <Field label="Gauge (needles per inch)" error={err('machine.gauge')}>{(id) => <Input id={id} type="number" step="any" className="figures" {...register('machine.gauge')} />}</Field>
             <Field label="Bed width (needles)" error={err('machine.bedNeedles')}>{(id) => <Input id={id} type="number" className="figures" {...register('machine.bedNeedles' as 'machine.gauge')} />}</Field>
             <Field label="Yarn carriers usable" error={err('machine.maxYarns')}>{(id) => <Input id={id} type="number" className="figures" {...register('machine.maxYarns')} />}</Field>
+            {sleeveField}
           </div>
         ) : (
           <div className="grid grid-cols-2 gap-4 md:grid-cols-6">
@@ -162,6 +174,7 @@ export function StyleForm({ style, readOnly = false }: { style?: Style; readOnly
               <div className="text-xs font-medium text-ink-soft">Needles (π × D × gauge)</div>
               <div className="figures flex h-9 items-center text-base font-semibold text-ink" data-testid="needle-count">{needles ?? '—'}</div>
             </div>
+            {sleeveField}
           </div>
         )}
       </fieldset>

@@ -6,7 +6,8 @@ import type { Panel } from '@/lib/knit/panel';
 import type { BodyMapSave } from '@/lib/validations/body-map';
 import { conflict, HttpError, notFound } from '@/lib/api/errors';
 import { randomUUID } from 'node:crypto';
-import { generatePanels } from '@/lib/knit/outline';
+import { generatePanels, outlineMeasurementsFromSpec } from '@/lib/knit/outline';
+import { baseSizePointsCm } from './fit';
 import { cylinderNeedles } from '@/lib/fit/needles';
 import { fallbackDensity } from '@/lib/editor';
 
@@ -154,9 +155,9 @@ export async function bodyMapOf(studioId: string, style: Style, q: Knex | Knex.T
   return generatedMap(studioId, style, q);
 }
 
-/** Panels generated from the style (nothing stored). */
+/** Panels generated from the style (nothing stored), shaped by the base size of its size spec when one is saved. */
 async function generatedMap(studioId: string, style: Style, q: Knex | Knex.Transaction): Promise<BodyMap> {
-  const base = await baseTextureForGeneration(studioId, style.id, q);
+  const [base, pointsCm] = await Promise.all([baseTextureForGeneration(studioId, style.id, q), baseSizePointsCm(style, q)]);
   const machineNeedles =
     style.machine.kind === 'circular'
       ? cylinderNeedles(style.machine.diameterIn, style.machine.gauge, style.machine.needleMultiple)
@@ -166,6 +167,8 @@ async function generatedMap(studioId: string, style: Style, q: Knex | Knex.Trans
     construction: style.construction,
     machineNeedles,
     density: base ?? fallbackDensity,
+    sleeveStyle: style.machine.sleeveStyle ?? 'set-in',
+    ...(pointsCm ? { measurements: outlineMeasurementsFromSpec(style.garmentType, pointsCm) } : {}),
     baseTextureId: base?.id ?? '',
     newId: () => randomUUID(),
   });

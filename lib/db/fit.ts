@@ -180,6 +180,24 @@ function defaultTextures(textures: readonly FitTexture[]) {
   };
 }
 
+/**
+ * The saved size spec's values per point of measure and size, cm (graded and overridden as the Fit
+ * section shows them), with its base size; null when no spec is saved.
+ */
+export async function gradedSizeSpec(style: Style, q: Db = db()): Promise<{ baseSize: string; values: Partial<Record<PointKey, Record<string, number | null>>> } | null> {
+  const stored = await loadSpec(style.id, style.sizes.labels, q);
+  if (!stored) return null;
+  const baseSize = style.sizes.labels.includes(stored.baseSize) ? stored.baseSize : style.sizes.base;
+  return { baseSize, values: resolveValues(pointsForGarment(stored, style.garmentType), style.sizes.labels, baseSize) };
+}
+
+/** The base size's value of every point of measure in the style's saved size spec, cm; null when no spec is saved. */
+export async function baseSizePointsCm(style: Style, q: Db = db()): Promise<Partial<Record<PointKey, number | null>> | null> {
+  const spec = await gradedSizeSpec(style, q);
+  if (!spec) return null;
+  return Object.fromEntries(Object.entries(spec.values).map(([point, bySize]) => [point, bySize?.[spec.baseSize] ?? null]));
+}
+
 /** The spec the style has, or its defaults; points in the garment's order; the base size one of the style's sizes. */
 function effectiveSpec(style: Style, stored: SizeSpec | null, textures: readonly FitTexture[]): SizeSpec {
   const diameter = style.machine.kind === 'circular' ? style.machine.diameterIn : undefined;

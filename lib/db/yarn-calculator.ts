@@ -4,12 +4,11 @@ import type { SessionUser } from './users';
 import { findStyleStamped, type Style } from './styles';
 import type { LibraryTexture } from './textures';
 import { yarnForViewer, type LibraryYarn } from './yarns';
-import { fitOfStyle } from './fit';
+import { gradedSizeSpec } from './fit';
 import { loadStyleParts } from './style-parts';
 import { DataCache } from './data-cache';
 import { HttpError, notFound } from '@/lib/api/errors';
 import { isOutsideRole } from '@/lib/auth/roles';
-import { resolveValues } from '@/lib/fit/grading';
 import type { Panel } from '@/lib/knit/panel';
 import { isHeatApplied } from '@/lib/rules/trim';
 import { orderTable, yarnCalculator, type GradedPoints, type YarnCalculatorFigures } from '@/lib/knit/yarn-calculator';
@@ -35,11 +34,9 @@ export interface YarnCalculatorSource {
 }
 
 /** The graded size spec of the Fit section (point → size → cm), or null when none is saved. */
-async function gradedSpec(user: SessionUser, style: Style, q: Knex): Promise<{ graded: GradedPoints | null; note?: string }> {
+async function gradedSpec(style: Style, q: Knex): Promise<{ graded: GradedPoints | null; note?: string }> {
   try {
-    const doc = await fitOfStyle(user, style, q);
-    if (!doc.saved) return { graded: null };
-    return { graded: resolveValues(doc.spec.points, doc.sizes, doc.spec.baseSize) };
+    return { graded: (await gradedSizeSpec(style, q))?.values ?? null };
   } catch (err) {
     if (err instanceof HttpError) throw err;
     console.error('Yarn calculator: the size spec could not be read', err);
@@ -49,7 +46,7 @@ async function gradedSpec(user: SessionUser, style: Style, q: Knex): Promise<{ g
 
 /** Reads the source of a style the caller has already read. */
 async function readSource(user: SessionUser, style: Style, q: Knex): Promise<YarnCalculatorSource> {
-  const [parts, spec] = await Promise.all([loadStyleParts(user, style, q), gradedSpec(user, style, q)]);
+  const [parts, spec] = await Promise.all([loadStyleParts(user, style, q), gradedSpec(style, q)]);
   const heatTransfer = parts.trims.some((t) => isHeatApplied({ id: t.id, panelId: '', kind: t.kind, method: t.method, box: t.box }));
   return {
     style: {

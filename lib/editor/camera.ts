@@ -9,6 +9,7 @@
  */
 import type { Panel, ScreenPoint, StitchPoint } from '@/lib/knit/panel';
 import type { Camera, EditorState, StitchDensity, TextureLookup, Viewport } from './types';
+import type { StitchBounds } from './geometry';
 
 /** Density used when a panel's base texture is not in the lookup (a fine-gauge plain jersey). */
 export const fallbackDensity: StitchDensity = { walesPerCm: 16, coursesPerCm: 22 };
@@ -166,4 +167,36 @@ export function fitCamera(
     pxPerCm,
     pan: { x: (viewport.widthPx - widthCm * pxPerCm) / 2, y: (viewport.heightPx - heightCm * pxPerCm) / 2 },
   };
+}
+
+/**
+ * The camera that brings a place on a panel into view: a stitch point, or a box of stitches
+ * (`StitchBounds`), centred in the viewport. The zoom is kept unless the box would not fit inside
+ * the viewport less `marginPx` on every side; then it zooms out just enough (never in). The same
+ * camera when the panel is unknown.
+ */
+export function centreOn(
+  state: Pick<EditorState, 'doc' | 'camera' | 'textures' | 'panelGapCm' | 'viewport'>,
+  panelId: string,
+  place: StitchPoint | StitchBounds,
+  marginPx = 32,
+): Camera {
+  const unit = layoutPanels(state.doc.panels, { pxPerCm: 1, pan: { x: 0, y: 0 } }, state.textures, state.panelGapCm);
+  const l = unit.find((u) => u.panelId === panelId);
+  if (!l) return state.camera;
+  const b: StitchBounds = 'minX' in place ? place : { minX: place.x, minY: place.y, maxX: place.x, maxY: place.y };
+  // In cm from the layout origin (the unit layout is 1 px per cm).
+  const x0 = l.leftCm + b.minX / l.density.walesPerCm;
+  const x1 = l.leftCm + b.maxX / l.density.walesPerCm;
+  const y0 = b.minY / l.density.coursesPerCm;
+  const y1 = b.maxY / l.density.coursesPerCm;
+  const availW = Math.max(1, state.viewport.widthPx - 2 * marginPx);
+  const availH = Math.max(1, state.viewport.heightPx - 2 * marginPx);
+  let pxPerCm = state.camera.pxPerCm;
+  if (x1 - x0 > 0) pxPerCm = Math.min(pxPerCm, availW / (x1 - x0));
+  if (y1 - y0 > 0) pxPerCm = Math.min(pxPerCm, availH / (y1 - y0));
+  pxPerCm = clampZoom(pxPerCm);
+  const cx = (x0 + x1) / 2;
+  const cy = (y0 + y1) / 2;
+  return { pxPerCm, pan: { x: state.viewport.widthPx / 2 - cx * pxPerCm, y: state.viewport.heightPx / 2 - cy * pxPerCm } };
 }

@@ -341,26 +341,24 @@ export function snapZonesToRepeats(
   });
 }
 
-/** The document with one point of a panel's cut outline moved (inside the panel; refused if edges would cross). */
+/**
+ * The document with one point of a panel's cut outline moved (inside the panel; refused if edges
+ * would cross). A fashioned panel's knitted area follows, as in `replaceOutline`.
+ */
 export function moveOutlineVertex(doc: BodyMapDocument, panelId: string, index: number, point: StitchPoint): BodyMapDocument {
-  return updatePanel(doc, panelId, (panel) => {
-    if (index < 0 || index >= panel.cutOutline.length) return panel;
-    const p = clampPointToPanel(point, panel);
-    const old = panel.cutOutline[index]!;
-    if (old.x === p.x && old.y === p.y) return panel;
-    const cutOutline = panel.cutOutline.slice();
-    cutOutline[index] = p;
-    return isSimplePolygon(cutOutline) ? { ...panel, cutOutline } : panel;
-  });
+  const panel = findPanel(doc, panelId);
+  if (!panel || index < 0 || index >= panel.cutOutline.length) return doc;
+  const cutOutline = panel.cutOutline.slice();
+  cutOutline[index] = point;
+  return replaceOutline(doc, panelId, cutOutline);
 }
 
-/** The document with a panel's cut outline replaced wholesale (from an outline drag that started at `outline`). */
+/**
+ * The document with a panel's cut outline replaced wholesale (from an outline drag that started at
+ * `outline`). A fashioned panel's knitted area follows, as in `replaceOutline`.
+ */
 export function setCutOutline(doc: BodyMapDocument, panelId: string, outline: StitchPolygon): BodyMapDocument {
-  return updatePanel(doc, panelId, (panel) => {
-    const clamped = clampPolygonToPanel(outline, panel);
-    if (!isSimplePolygon(clamped) || samePolygon(clamped, panel.cutOutline)) return panel;
-    return { ...panel, cutOutline: clamped };
-  });
+  return replaceOutline(doc, panelId, outline);
 }
 
 /**
@@ -374,6 +372,21 @@ export function replaceOutline(doc: BodyMapDocument, panelId: string, outline: S
     const fashioned = samePolygon(panel.knittedArea, panel.cutOutline);
     return { ...panel, cutOutline: clamped, ...(fashioned ? { knittedArea: clamped } : {}) };
   });
+}
+
+/**
+ * The document with its panels replaced by `panels` (a local copy of unsaved work), matched by
+ * position: each keeps the id of the panel in its place, so a copy taken from generated panels
+ * (fresh ids on every load) lands on the ones loaded now. Null when the count or the kinds of the
+ * panels differ; the same document when nothing would change.
+ */
+export function restorePanels(doc: BodyMapDocument, panels: readonly Panel[]): BodyMapDocument | null {
+  if (panels.length !== doc.panels.length || panels.some((p, i) => p.kind !== doc.panels[i]!.kind)) return null;
+  const next = doc.panels.map((current, i) => {
+    const copy = { ...panels[i]!, id: current.id };
+    return JSON.stringify(copy) === JSON.stringify(current) ? current : copy;
+  });
+  return next.every((p, i) => p === doc.panels[i]) ? doc : { ...doc, panels: next };
 }
 
 /** Whether the document has a panel with this id (guards commands coming from the view). */

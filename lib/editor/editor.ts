@@ -6,6 +6,7 @@
  */
 import type { StitchPolygon, Panel, ScreenPoint, StitchPoint, ZoneFunction } from '@/lib/knit/panel';
 import {
+  centreOn,
   fitCamera,
   layoutOf,
   panCamera,
@@ -18,6 +19,7 @@ import {
   type PanelLayout,
 } from './camera';
 import * as cmd from './commands';
+import type { StitchBounds } from './geometry';
 import { allZoneIds, findPanel, findZone } from './document';
 import * as hist from './history';
 import { bindShortcuts, comboOfKey, defaultShortcuts, type Shortcut } from './shortcuts';
@@ -472,6 +474,11 @@ export class Editor {
     });
   }
 
+  /** Bring a place on a panel (a stitch point or box) into view, centred; zooms out only if it would not fit. Not recorded in history. */
+  centreOn(panelId: string, place: StitchPoint | StitchBounds): void {
+    this.batch(() => this.set({ camera: centreOn(this.current, panelId, place) }));
+  }
+
   /** Show fabric at true size on a 96 px/in screen, about the middle of the viewport. */
   zoomToTrueSize(): void {
     this.zoomAt(this.viewportCentre(), cssPxPerCm / this.current.camera.pxPerCm);
@@ -734,6 +741,14 @@ export class Editor {
       const doc = this.current.doc.version === version ? this.current.doc : { ...this.current.doc, version };
       this.set({ savedRevision: Math.max(this.current.savedRevision, revision), doc });
     });
+  }
+
+  /**
+   * Put a local copy of unsaved work in place of the panels, as one undoable edit (see
+   * `commands.restorePanels`). False when the panels do not match or nothing changed.
+   */
+  restorePanels(panels: readonly Panel[]): boolean {
+    return this.batch(() => this.change('Restore unsaved work', (doc) => cmd.restorePanels(doc, panels) ?? doc));
   }
 
   /** Replace the document (first load, or reload after a conflict): history cleared, clean. */

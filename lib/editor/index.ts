@@ -9,6 +9,7 @@ export { Editor, createEditor, cssPxPerCm, zoomStep, type EditorOptions } from '
 export type * from './types';
 export { toolIds } from './types';
 export {
+  centreOn,
   fallbackDensity,
   fitCamera,
   layoutOf,

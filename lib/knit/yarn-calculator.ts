@@ -114,6 +114,27 @@ export function scaleStitches(stitches: PanelStitches, factor: number): PanelSti
   return { stitches: out };
 }
 
+/**
+ * One size's stitches per panel: the base size's rasters scaled panel by panel by `panelGrades`.
+ * `basis` says how the size's grams are found: `drawn` (the base size: its rasters as they are),
+ * `graded` (every panel has a factor: `panels` holds the scaled stitches) or `base-grams` (some
+ * panel has none: the size takes the base size's grams, `panels` is null).
+ */
+export function gradedSizeStitches(input: {
+  garment: GarmentKind;
+  panels: readonly Pick<Panel, 'id' | 'kind'>[];
+  rasters: ReadonlyMap<string, PanelStitches>;
+  baseSize: string;
+  size: string;
+  graded: GradedPoints | null;
+}): { basis: SizeBasis; grades: PanelGrade[]; panels: PanelStitches[] | null } {
+  const grades = panelGrades({ garment: input.garment, panels: input.panels, baseSize: input.baseSize, size: input.size, values: input.graded });
+  const empty: PanelStitches = { stitches: {} };
+  if (input.size === input.baseSize) return { basis: 'drawn', grades, panels: input.panels.map((p) => input.rasters.get(p.id) ?? empty) };
+  if (grades.length === 0 || grades.some((g) => g.factor === null)) return { basis: 'base-grams', grades, panels: null };
+  return { basis: 'graded', grades, panels: input.panels.map((p, i) => scaleStitches(input.rasters.get(p.id) ?? empty, grades[i]?.factor ?? 1)) };
+}
+
 // ---------------------------------------------------------------------------------------------
 // The calculator
 
@@ -287,21 +308,13 @@ export function yarnCalculator(input: YarnCalculatorInput): { figures: YarnCalcu
   });
 
   // Per size.
-  const empty: PanelStitches = { stitches: {} };
-  const rasterOf = (id: string): PanelStitches => summary.rasters.get(id) ?? empty;
   const base = summary.consumption;
   const sizes: SizeFigures[] = [];
   const scaledSizes: { size: string; panels: PanelStitches[] }[] = [];
   for (const size of input.sizes) {
-    const grades = panelGrades({ garment: input.garment, panels: input.panels, baseSize: input.baseSize, size, values: input.graded });
-    const basis: SizeBasis = size === input.baseSize ? 'drawn' : grades.length > 0 && grades.every((g) => g.factor !== null) ? 'graded' : 'base-grams';
-    sizes.push({ size, basis, panels: grades, consumption: null });
-    if (basis === 'graded') {
-      scaledSizes.push({
-        size,
-        panels: input.panels.map((p, i) => scaleStitches(rasterOf(p.id), grades[i]?.factor ?? 1)),
-      });
-    }
+    const g = gradedSizeStitches({ garment: input.garment, panels: input.panels, rasters: summary.rasters, baseSize: input.baseSize, size, graded: input.graded });
+    sizes.push({ size, basis: g.basis, panels: g.grades, consumption: null });
+    if (g.basis === 'graded' && g.panels) scaledSizes.push({ size, panels: g.panels });
   }
   if (base) {
     const graded = scaledSizes.length

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { readDecimal } from './number';
+import { sleeveStyles, type SleeveStyle } from '@/lib/knit/outline';
 
 export const garmentTypes = ['long-sleeve-top', 'short-sleeve-top', 'tank', 'sports-bra', 'legging', 'shorts'] as const;
 export type GarmentType = (typeof garmentTypes)[number];
@@ -35,6 +36,10 @@ export const styleStatusLabels: Record<StyleStatus, string> = {
 const numeric = <T extends z.ZodType>(inner: T) => z.preprocess(readDecimal, inner);
 
 
+export const sleeveStyleLabels: Record<SleeveStyle, string> = { 'set-in': 'Set-in sleeve', raglan: 'Raglan sleeve' };
+/** How the sleeves join the body in the generated outlines; absent on styles made before it existed (set-in). */
+const sleeveStyleField = z.enum(sleeveStyles).optional();
+
 export const circularMachineSchema = z.object({
   kind: z.literal('circular'),
   diameterIn: numeric(z.number({ error: 'Cylinder diameter must be a number' }).positive('Cylinder diameter must be above zero').max(40, 'Cylinder diameter above 40 in is not a body-size machine')),
@@ -42,12 +47,14 @@ export const circularMachineSchema = z.object({
   needleMultiple: numeric(z.number().int().positive().max(64)).default(4),
   feeders: numeric(z.number().int().min(1, 'At least one feeder').max(200)),
   maxYarns: numeric(z.number().int().min(1).max(12)).default(3),
+  sleeveStyle: sleeveStyleField,
 });
 export const flatMachineSchema = z.object({
   kind: z.literal('flat'),
   gauge: numeric(z.number({ error: 'Gauge must be a number' }).positive('Gauge must be above zero').max(60)),
   bedNeedles: numeric(z.number().int().min(20, 'A bed has at least 20 needles').max(2000)),
   maxYarns: numeric(z.number().int().min(1).max(16)).default(6),
+  sleeveStyle: sleeveStyleField,
 });
 export const machineSchema = z.discriminatedUnion('kind', [circularMachineSchema, flatMachineSchema]);
 export type MachineSetup = z.infer<typeof machineSchema>;

@@ -50,6 +50,54 @@ describe('body map API', () => {
     expect(map.panels[0].widthNeedles).toBe(616);
   });
 
+  it('a generated map takes the base size of the saved size spec: body and sleeve lengths, and a flat body panel as wide as the chest half-width', async () => {
+    const { designer, style, map } = await freshMap();
+    const texture = await knex('textures').where({ id: map.panels[0].baseTextureId }).first('courses_per_cm');
+    const cpc = Number(texture.courses_per_cm);
+    // Without a spec: the 60 cm default body length.
+    expect(map.panels[0].heightCourses).toBe(Math.round(60 * cpc));
+    const fit = (await designer.get(`/api/styles/${style.id}/fit`)).json.fit;
+    const points = fit.spec.points.map((p: any) =>
+      p.point === 'body-length-hps' ? { ...p, baseCm: 66 } : p.point === 'sleeve-length' ? { ...p, baseCm: 64 } : p);
+    const { baseSize, girths, cutAndSew, baseTextureId, compressionTextureId, cylinderDiametersIn, target } = fit.spec;
+    const saved = await designer.put(`/api/styles/${style.id}/fit`, { version: fit.version, baseSize, points, girths, cutAndSew, baseTextureId, compressionTextureId, cylinderDiametersIn, target });
+    expect(saved.status).toBe(200);
+    const now = (await designer.get(`/api/styles/${style.id}/body-map`)).json;
+    expect(now.generated).toBe(true);
+    expect(now.panels[0].heightCourses).toBe(Math.round(66 * cpc));
+    expect(now.panels.find((p: any) => p.kind === 'sleeve-left').heightCourses).toBe(Math.round(64 * cpc));
+    // The seamless body stays half the cylinder.
+    expect(now.panels[0].widthNeedles).toBe(616);
+
+    const flatBody = { ...newStyleBody(), construction: 'flat', machine: { kind: 'flat', gauge: 14, bedNeedles: 2000 } };
+    const flat = (await designer.post('/api/styles', flatBody)).json.style;
+    const flatFit = (await designer.get(`/api/styles/${flat.id}/fit`)).json.fit;
+    const flatMap = (await designer.get(`/api/styles/${flat.id}/body-map`)).json;
+    const flatTexture = await knex('textures').where({ id: flatMap.panels[0].baseTextureId }).first('wales_per_cm');
+    const chest = flatFit.spec.points.map((p: any) => (p.point === 'chest-half' ? { ...p, baseCm: 44 } : p));
+    const s = flatFit.spec;
+    expect((await designer.put(`/api/styles/${flat.id}/fit`, { version: flatFit.version, baseSize: s.baseSize, points: chest, girths: s.girths, cutAndSew: s.cutAndSew,
+      baseTextureId: s.baseTextureId, compressionTextureId: s.compressionTextureId, cylinderDiametersIn: s.cylinderDiametersIn, target: s.target })).status).toBe(200);
+    const flatNow = (await designer.get(`/api/styles/${flat.id}/body-map`)).json;
+    expect(flatNow.panels[0].widthNeedles).toBe(Math.round(44 * Number(flatTexture.wales_per_cm)));
+  });
+
+  it('a style whose machine setup says raglan gets raglan outlines; an unknown sleeve style is a 400; existing styles stay set-in', async () => {
+    const designer = await as('designer');
+    const body = newStyleBody();
+    const raglan = await designer.post('/api/styles', { ...body, machine: { ...body.machine, sleeveStyle: 'raglan' } });
+    expect(raglan.status).toBe(201);
+    expect(raglan.json.style.machine.sleeveStyle).toBe('raglan');
+    const setIn = (await freshMap()).map;
+    const map = (await designer.get(`/api/styles/${raglan.json.style.id}/body-map`)).json;
+    const sleeve = map.panels.find((p: any) => p.kind === 'sleeve-left');
+    // A raglan sleeve top is two straight lines and a short top edge: six vertices with the cuff; the set-in cap is a curve.
+    expect(sleeve.cutOutline).toHaveLength(6);
+    expect(setIn.panels.find((p: any) => p.kind === 'sleeve-left').cutOutline.length).toBeGreaterThan(6);
+    const bad = await designer.post('/api/styles', { ...newStyleBody(), machine: { ...body.machine, sleeveStyle: 'puff' } });
+    expect(bad.status).toBe(400);
+  });
+
   it('PUT saves panels and zones at the current version; GET returns them; an audit entry is written', async () => {
     const { designer, style, map } = await freshMap();
     const panels = withZone(map);

@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { randomUUID } from 'node:crypto';
 import type { Browser, Page } from 'playwright-core';
 import { launch, signIn } from './browser';
 import { accounts, baseUrl, newStyleBody, as } from '../api/helpers';
@@ -22,6 +23,12 @@ async function drawZone(page: Page, pts: [number, number][]) {
     await page.mouse.click(box.x + front.x + front.w * fx, box.y + front.y + front.h * fy);
   }
   await page.keyboard.press('Enter');
+}
+
+async function nameSelectedZone(page: Page, name: string) {
+  await page.getByLabel('Selected zone').waitFor();
+  await page.getByLabel('Name', { exact: true }).fill(name);
+  await page.getByLabel('Name', { exact: true }).press('Enter');
 }
 
 async function savedState(page: Page) {
@@ -57,6 +64,12 @@ describe('body map in the browser', () => {
     await expect.poll(() => page.getByTestId('texture-totals').textContent()).not.toBe(totalsBefore);
     expect(await page.getByTestId('texture-totals').textContent()).toContain(pick);
     await expect.poll(() => savedState(page), { timeout: 10_000 }).toBe('saved');
+    // The cut-away area stands beside the kept one.
+    expect(await page.getByTestId('texture-totals').locator('thead').textContent()).toContain('cut away');
+    // Another size: this style has no size spec yet, so it says it shows the base size's grams.
+    await page.getByLabel('Size for the yarn grams').selectOption('S');
+    expect(await page.getByTestId('yarn-grams').getAttribute('data-size')).toBe('S');
+    expect(await page.getByTestId('size-basis').textContent()).toMatch(/No graded size spec for S/);
 
     await page.reload();
     await page.getByTestId('body-map-canvas').waitFor();
@@ -82,16 +95,63 @@ describe('body map in the browser', () => {
 
     await a.bringToFront();
     await drawZone(a, [[0.5, 0.2], [0.8, 0.2], [0.8, 0.3]]);
+    await nameSelectedZone(a, 'Saved in tab A');
     await expect.poll(() => savedState(a), { timeout: 10_000 }).toBe('saved');
 
     await b.bringToFront();
     await drawZone(b, [[0.5, 0.8], [0.8, 0.8], [0.8, 0.9]]);
+    await nameSelectedZone(b, 'Unsaved in tab B');
     await expect.poll(() => savedState(b), { timeout: 10_000 }).toBe('conflict');
     expect(await b.getByRole('button', { name: 'Reload latest' }).count()).toBe(1);
-    // Reloading brings in the other tab's zone.
-    const zonesBefore = await b.getByLabel('Zones').locator('li').count();
+    const zone = (page: Page, name: string) => page.getByLabel('Zones').getByRole('button', { name: new RegExp(`^${name}`) });
+    expect(await zone(b, 'Unsaved in tab B').count()).toBe(1);
+    expect(await zone(b, 'Saved in tab A').count()).toBe(0);
+    // Reloading brings in the other tab's zone and drops this tab's unsaved one.
     await b.getByRole('button', { name: 'Reload latest' }).click();
     await expect.poll(() => savedState(b)).toBe('saved');
-    expect(await b.getByLabel('Zones').locator('li').count()).toBe(zonesBefore);
+    await expect.poll(() => zone(b, 'Saved in tab A').count()).toBe(1);
+    expect(await zone(b, 'Unsaved in tab B').count()).toBe(0);
+  });
+
+  it('a cut-line drag released off the canvas ends there, and the map saves', { timeout: 90_000 }, async () => {
+    const designer = await as('designer');
+    const id = (await designer.post('/api/styles', { ...newStyleBody(), name: 'Body-map drag-off test' })).json.style.id;
+    const page = await signIn(browser, accounts.designer);
+    await page.goto(`${baseUrl()}/styles/${id}/body-map`);
+    const { box, panels: ps } = await panels(page);
+    const front = ps[0]!;
+    const canvas = (await page.getByTestId('body-map-canvas').boundingBox())!;
+    await page.keyboard.press('l');
+    // The knitted tube's bottom-left corner is a point of the cut outline.
+    await page.mouse.move(box.x + front.x, box.y + front.y + front.h);
+    await page.mouse.down();
+    await page.mouse.move(box.x + front.x + front.w * 0.1, box.y + front.y + front.h * 0.95, { steps: 4 });
+    // Out past the canvas's right edge, over the side panel, and let go there.
+    await page.mouse.move(canvas.x + canvas.width + 40, canvas.y + canvas.height / 2, { steps: 4 });
+    await page.mouse.up();
+    // The gesture ended, so autosave ran: the map is stored now (before, the drag stayed live and nothing saved).
+    await expect.poll(async () => (await designer.get(`/api/styles/${id}/body-map`)).json.generated, { timeout: 15_000 }).toBe(false);
+    await expect.poll(() => savedState(page)).toBe('saved');
+  });
+
+  it('offers work kept in this browser back on opening; restoring it puts it in the map and saves it', { timeout: 90_000 }, async () => {
+    const designer = await as('designer');
+    const id = (await designer.post('/api/styles', { ...newStyleBody(), name: 'Body-map restore test' })).json.style.id;
+    const map = (await designer.get(`/api/styles/${id}/body-map`)).json;
+    const panels = structuredClone(map.panels);
+    panels[0].zones.push({
+      id: randomUUID(), name: 'Kept in the browser', textureId: panels[0].baseTextureId, fn: 'compression', order: 1,
+      polygon: [{ x: 10, y: 100 }, { x: 120, y: 100 }, { x: 120, y: 600 }, { x: 10, y: 600 }],
+    });
+    const page = await signIn(browser, accounts.designer);
+    await page.goto(`${baseUrl()}/styles/${id}/body-map`);
+    await page.getByTestId('body-map-canvas').waitFor();
+    await page.evaluate(([key, value]) => window.localStorage.setItem(key!, value!), [`needlemap:body-map-backup:${id}`, JSON.stringify({ savedAt: Date.now(), version: map.version, panels })]);
+    await page.reload();
+    await page.getByRole('button', { name: 'Restore unsaved work' }).click();
+    await expect.poll(() => page.getByLabel('Zones').getByRole('button', { name: /^Kept in the browser/ }).count()).toBe(1);
+    await expect.poll(async () => (await designer.get(`/api/styles/${id}/body-map`)).json.panels[0].zones.map((z: { name: string }) => z.name), { timeout: 15_000 })
+      .toEqual(['Kept in the browser']);
+    expect(await page.getByTestId('restore-offer').count()).toBe(0);
   });
 });

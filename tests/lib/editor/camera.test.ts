@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { layoutPanels, screenToStitch, stitchToScreen, zoomLimits } from '@/lib/editor/camera';
+import { centreOn, layoutPanels, screenToStitch, stitchToScreen, zoomLimits } from '@/lib/editor/camera';
 import { TestEditor, bodyDocument, bodyPanel, rectZone, textures } from './test-editor';
 
 describe('layout', () => {
@@ -137,5 +137,48 @@ describe('pan', () => {
     expect(t.points('a')[0]).toEqual([20, 30]);
     expect(t.state.camera).toBe(camera);
     expect(t.state.canUndo).toBe(false);
+  });
+});
+
+describe('centreOn', () => {
+  // Geometry of the layout: common practice, no published source (a point is visible when it lies inside the viewport).
+  const inside = (p: { x: number; y: number }, w = 1000, h = 600) => p.x >= 0 && p.x <= w && p.y >= 0 && p.y <= h;
+
+  it('pans a stitch off screen into the middle of the viewport, keeping the zoom', () => {
+    const t = new TestEditor();
+    t.editor.setCamera({ pxPerCm: 32, pan: { x: -2000, y: -900 } });
+    const place = { x: 200, y: 350 };
+    expect(inside(t.at('back', place.x, place.y))).toBe(false);
+    const camera = centreOn(t.state, 'back', place);
+    expect(camera.pxPerCm).toBe(32);
+    t.editor.centreOn('back', place);
+    const s = t.at('back', place.x, place.y);
+    expect(s.x).toBeCloseTo(500, 9);
+    expect(s.y).toBeCloseTo(300, 9);
+    // A camera move, not an edit.
+    expect(t.state.canUndo).toBe(false);
+  });
+
+  it('zooms out just enough for a box larger than the viewport, and never zooms in', () => {
+    const t = new TestEditor();
+    // The whole back panel (15 cm × 20 cm) at 100 px/cm is 2000 px tall: too big for 600 px less 2 × 32 margin.
+    t.editor.setCamera({ pxPerCm: 100, pan: { x: 0, y: 0 } });
+    const box = { minX: 0, minY: 0, maxX: 240, maxY: 400 };
+    t.editor.centreOn('back', box);
+    expect(t.state.camera.pxPerCm).toBeCloseTo((600 - 64) / 20, 9);
+    const tl = t.at('back', 0, 0);
+    const br = t.at('back', 240, 400);
+    expect(inside(tl) && inside(br)).toBe(true);
+    expect(tl.y).toBeCloseTo(32, 9);
+    // A small box at a coarse zoom keeps the zoom.
+    t.editor.setCamera({ pxPerCm: 4, pan: { x: 0, y: 0 } });
+    t.editor.centreOn('front', { minX: 10, minY: 10, maxX: 20, maxY: 20 });
+    expect(t.state.camera.pxPerCm).toBe(4);
+  });
+
+  it('leaves the camera alone for an unknown panel', () => {
+    const t = new TestEditor();
+    const before = t.state.camera;
+    expect(centreOn(t.state, 'nope', { x: 1, y: 1 })).toBe(before);
   });
 });

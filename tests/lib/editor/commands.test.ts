@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { TestEditor, bodyDocument, bodyPanel, rectZone } from './test-editor';
+import { moveOutlineVertex, restorePanels, setCutOutline } from '@/lib/editor/commands';
 
 function setup() {
   return new TestEditor({
@@ -314,5 +315,47 @@ describe('replace outline', () => {
     expect(t.state.doc.panels[0]!.cutOutline).toEqual(before);
     // A crossing outline is refused.
     expect(t.editor.replaceOutline(panelId, [{ x: 0, y: 0 }, { x: 100, y: 100 }, { x: 100, y: 0 }, { x: 0, y: 100 }])).toBe(false);
+  });
+});
+
+describe('moving a cut-line point', () => {
+  it('moveOutlineVertex and setCutOutline carry a fashioned panel\'s knitted area with the cut lines', () => {
+    const doc = bodyDocument();
+    const front = doc.panels[0]!;
+    const fashioned = { ...doc, panels: [{ ...front, knittedArea: front.cutOutline }, doc.panels[1]!] };
+    const moved = moveOutlineVertex(fashioned, 'front', 1, { x: 70, y: 12 });
+    expect(moved.panels[0]!.cutOutline[1]).toEqual({ x: 70, y: 12 });
+    expect(moved.panels[0]!.knittedArea).toEqual(moved.panels[0]!.cutOutline);
+    const outline = front.cutOutline.map((p, i) => (i === 2 ? { x: 150, y: 8 } : p));
+    const set = setCutOutline(fashioned, 'front', outline);
+    expect(set.panels[0]!.knittedArea).toEqual(outline);
+    // A crossing move changes nothing.
+    expect(moveOutlineVertex(fashioned, 'front', 4, { x: 0, y: 0 })).toBe(fashioned);
+    // A tube keeps its rectangle.
+    expect(moveOutlineVertex(doc, 'front', 1, { x: 70, y: 12 }).panels[0]!.knittedArea).toEqual(front.knittedArea);
+  });
+});
+
+describe('restoring unsaved work', () => {
+  it('puts a local copy in place as one undoable edit, onto the panel ids loaded now', () => {
+    const t = setup();
+    const before = t.state.doc;
+    // A copy taken from generated panels carries other panel ids; its zones are what matter.
+    const copy = before.panels.map((p, i) => ({ ...p, id: `old-${i}`, zones: i === 0 ? [...p.zones, rectZone('kept', 5, 300, 20, 20)] : p.zones }));
+    expect(t.editor.restorePanels(copy)).toBe(true);
+    expect(t.state.doc.panels.map((p) => p.id)).toEqual(before.panels.map((p) => p.id));
+    expect(t.state.doc.panels[0]!.zones.map((z) => z.id)).toContain('kept');
+    expect(t.state.doc.panels[1]).toBe(before.panels[1]);
+    expect(t.state.undoLabel).toBe('Restore unsaved work');
+    expect(t.editor.isDirty()).toBe(true);
+    t.editor.undo();
+    expect(t.state.doc.panels).toEqual(before.panels);
+  });
+
+  it('refuses panels that no longer match, and reports a copy equal to the document as no change', () => {
+    const doc = bodyDocument();
+    expect(restorePanels(doc, doc.panels.slice(0, 1))).toBeNull();
+    expect(restorePanels(doc, [doc.panels[1]!, doc.panels[0]!])).toBeNull();
+    expect(restorePanels(doc, structuredClone(doc.panels))).toBe(doc);
   });
 });

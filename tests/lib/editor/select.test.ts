@@ -162,6 +162,26 @@ describe('select tool', () => {
     expect(t.panel('front').cutOutline).toBe(outline);
   });
 
+  it('on a fashioned (flat) panel the knitted area follows a dragged cut-line point; on a tube it stays the rectangle', () => {
+    // Product design: a flat-knit panel's knitted area is its outline itself.
+    const doc = bodyDocument();
+    const front = doc.panels[0]!;
+    const fashioned = { ...doc, panels: [{ ...front, knittedArea: front.cutOutline }, doc.panels[1]!] };
+    const t = new TestEditor({ doc: fashioned });
+    t.keyDown('l');
+    t.drag(t.at('front', 80, 0), t.at('front', 90, 10));
+    expect(t.panel('front').cutOutline[1]).toEqual({ x: 90, y: 10 });
+    expect(t.panel('front').knittedArea).toEqual(t.panel('front').cutOutline);
+    t.editor.undo();
+    expect(t.panel('front').knittedArea).toEqual(front.cutOutline);
+
+    const tube = new TestEditor({ doc: bodyDocument() });
+    tube.keyDown('l');
+    tube.drag(tube.at('front', 80, 0), tube.at('front', 90, 10));
+    expect(tube.panel('front').cutOutline[1]).toEqual({ x: 90, y: 10 });
+    expect(tube.panel('front').knittedArea).toEqual([{ x: 0, y: 0 }, { x: 240, y: 0 }, { x: 240, y: 400 }, { x: 0, y: 400 }]);
+  });
+
   it('selects but does not move zones on a read-only body map', () => {
     const t = setup({ readOnly: true });
     t.drag(t.at('front', 30, 50), t.at('front', 50, 70));

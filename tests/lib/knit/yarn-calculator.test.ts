@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { rectanglePolygon, type Panel } from '@/lib/knit/panel';
 import { needlePitchMm, type Texture } from '@/lib/knit/texture';
 import type { Yarn } from '@/lib/knit/yarn';
-import { gradePointsFor, orderTable, panelGrades, yarnCalculator, type GradedPoints, type YarnCalculatorInput } from '@/lib/knit/yarn-calculator';
+import { gradePointsFor, gradedSizeStitches, orderTable, panelGrades, yarnCalculator, type GradedPoints, type YarnCalculatorInput } from '@/lib/knit/yarn-calculator';
+import { consumptionBySize } from '@/lib/knit/consumption';
 
 const pa: Yarn = { id: 'pa', name: 'PA 78', dtex: 78, fibres: [{ fibre: 'polyamide', share: 1 }], colour: { state: 'dyeable' } };
 const el: Yarn = { id: 'el', name: 'EL 44', dtex: 44, fibres: [{ fibre: 'elastane', share: 1 }], colour: { state: 'dyeable' } };
@@ -166,5 +167,26 @@ describe('yarnCalculator', () => {
 
   it('refuses a waste allowance outside 0–100 %', () => {
     expect(() => yarnCalculator({ ...base, wasteAllowance: -0.1 })).toThrow(RangeError);
+  });
+});
+
+describe('gradedSizeStitches (the body map summary\'s size picker and the calculator share it)', () => {
+  it('scales each panel by its grade; the calculator\'s per-size grams come from the same stitches', () => {
+    const { figures, summary } = yarnCalculator(base);
+    const s = gradedSizeStitches({ garment: 'long-sleeve-top', panels, rasters: summary.rasters, baseSize: 'M', size: 'S', graded });
+    expect(s.basis).toBe('graded');
+    // Front: chest 48/50 × length 58.5/60 (the grade of the spec above).
+    const front = summary.rasters.get('f')!.stitches.plain!;
+    expect(s.panels![0]!.stitches.plain!.inside).toBeCloseTo(front.inside * (48 / 50) * (58.5 / 60), 9);
+    const grams = consumptionBySize({ sizes: [{ size: 'S', panels: s.panels! }], textures, yarns: [pa, el], gauge: 28, wasteAllowance: base.wasteAllowance }).S!;
+    expect(grams.grossGrams).toBeCloseTo(figures.sizes.find((x) => x.size === 'S')!.consumption!.grossGrams, 9);
+    expect(grams.grossGrams).toBeLessThan(figures.sizes.find((x) => x.size === 'M')!.consumption!.grossGrams);
+  });
+
+  it('the base size is drawn as it is; a size without graded values takes the base size\'s grams', () => {
+    const { summary } = yarnCalculator(base);
+    expect(gradedSizeStitches({ garment: 'long-sleeve-top', panels, rasters: summary.rasters, baseSize: 'M', size: 'M', graded }).basis).toBe('drawn');
+    const none = gradedSizeStitches({ garment: 'long-sleeve-top', panels, rasters: summary.rasters, baseSize: 'M', size: 'S', graded: null });
+    expect(none).toMatchObject({ basis: 'base-grams', panels: null });
   });
 });

@@ -4,6 +4,7 @@ import { loadBodyMap } from '@/lib/db/body-map';
 import { listStyleTextures, listTextures, yarnsOfTextures } from '@/lib/db/textures';
 import { yarnForViewer } from '@/lib/db/yarns';
 import { listTrims } from '@/lib/db/trims';
+import { gradedSizeSpec } from '@/lib/db/fit';
 import { studioRuleLimits } from '@/lib/db/rule-limits';
 import { trimKindLabels } from '@/lib/validations/library';
 import { BodyMapEditor } from '@/components/body-map/body-map-editor';
@@ -14,8 +15,8 @@ export const metadata: Metadata = { title: 'Body map' };
 
 export default async function BodyMapPage({ params }: { params: Promise<{ id: string }> }) {
   const { user, style } = await workingCopyStyle((await params).id);
-  const [map, styleTextures, styleTrims, ruleLimits] = await Promise.all([
-    loadBodyMap(user, style.id), listStyleTextures(user, style.id), listTrims(user, style.id), studioRuleLimits(user.studioId),
+  const [map, styleTextures, styleTrims, spec, ruleLimits] = await Promise.all([
+    loadBodyMap(user, style.id), listStyleTextures(user, style.id), listTrims(user, style.id), gradedSizeSpec(style), studioRuleLimits(user.studioId),
   ]);
   if (!map) notFound();
   const panelIdOf = new Map(map.panels.map((p) => [p.kind, p.id]));
@@ -39,6 +40,9 @@ export default async function BodyMapPage({ params }: { params: Promise<{ id: st
       ruleLimits={ruleLimits}
       readOnly={!can(user.role, 'style:edit')}
       baseSize={style.sizes.base}
+      sizes={style.sizes.labels}
+      garment={style.garmentType}
+      graded={spec?.values ?? null}
       trims={trims}
     />
   );
