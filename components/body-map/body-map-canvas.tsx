@@ -147,8 +147,12 @@ function Rulers({ panel, layout, unit }: { panel: Panel; layout: PanelLayout; un
     out.push(<Line key={`y${v}`} points={[left - 5, y, left, y]} stroke="#7b8288" strokeWidth={1} listening={false} />);
     out.push(<Text key={`yt${v}`} x={left - 44} y={y - 5} width={36} align="right" text={String(v)} fontSize={10} fontFamily="var(--font-figures), monospace" fill="#7b8288" listening={false} />);
   }
-  const unitLabel = unit === 'stitches' ? 'needles' : unit;
-  out.push(<Text key="name" x={origin.x} y={top - 34} text={`${panel.name} · ${panel.widthNeedles} × ${panel.heightCourses}  (${unitLabel}${unit === 'stitches' ? ' × courses' : ''})`} fontSize={12} fontStyle="600" fill={INK} listening={false} />);
+  // The panel's size in the ruler's unit; cut short with an ellipsis rather than run into the next panel.
+  const size = unit === 'stitches'
+    ? `${panel.widthNeedles} × ${panel.heightCourses} needles × courses`
+    : `${(maxX).toFixed(1)} × ${(maxY).toFixed(1)} ${unit}`;
+  const titleWidth = Math.max(60, panel.widthNeedles * pxPerNeedle + 16);
+  out.push(<Text key="name" x={origin.x} y={top - 34} width={titleWidth} wrap="none" ellipsis text={`${panel.name} · ${size}`} fontSize={12} fontStyle="600" fill={INK} listening={false} />);
   return <>{out}</>;
 }
 

@@ -2,9 +2,8 @@
 
 import dynamic from 'next/dynamic';
 import { useEffect, useMemo, useState, useSyncExternalStore } from 'react';
-import { Editor, findPanel, findZone, polygonBounds, type TextureLookup } from '@/lib/editor';
+import { Editor, findPanel, findZone, polygonBounds, type TextureInfo, type TextureLookup } from '@/lib/editor';
 import type { Panel } from '@/lib/knit/panel';
-import type { Texture } from '@/lib/knit/texture';
 import type { Yarn } from '@/lib/knit/yarn';
 import type { LibraryTexture } from '@/lib/db/textures';
 import { summariseBodyMap, type BodyMapSummary } from '@/lib/knit/summary';
@@ -49,10 +48,13 @@ export interface BodyMapEditorProps {
 /** The previous summary per editor, so unchanged panels keep their raster between edits. */
 const lastSummary = new WeakMap<Editor, { panels: readonly Panel[]; summary: BodyMapSummary }>();
 
-function textureLookup(textures: readonly Texture[]): TextureLookup {
-  const out: Record<string, { repeatNeedles: number; repeatCourses: number; walesPerCm: number; coursesPerCm: number }> = {};
+function textureLookup(textures: readonly LibraryTexture[]): TextureLookup {
+  const out: Record<string, TextureInfo> = {};
   for (const t of textures) {
-    out[t.id] = { repeatNeedles: t.repeat.needles, repeatCourses: t.repeat.courses, walesPerCm: t.density.walesPerCm, coursesPerCm: t.density.coursesPerCm };
+    out[t.id] = {
+      repeatNeedles: t.repeat.needles, repeatCourses: t.repeat.courses, walesPerCm: t.density.walesPerCm, coursesPerCm: t.density.coursesPerCm,
+      fn: t.function,
+    };
   }
   return out;
 }

@@ -85,7 +85,7 @@ export async function seed(knex: Knex): Promise<void> {
         }));
         const zone: Zone = { id: randomUUID(), name: plan.name, textureId: tex(plan.texture).id, fn: plan.fn, order: order++, polygon };
         panel.zones.push(zone);
-        if (plan.mirror) panel.zones.push({ ...mirrorZone(zone, panel.widthNeedles), id: randomUUID(), name: `${plan.name} (mirrored)`, order: order++ });
+        if (plan.mirror) panel.zones.push({ ...mirrorZone(zone, panel.widthNeedles), id: randomUUID(), name: `${plan.name} (mirror)`, order: order++ });
       }
     }
     await knex('panels').insert(

@@ -144,28 +144,38 @@ export function wheelZoomFactor(deltaY: number): number {
   return Math.pow(2, -deltaY / 300);
 }
 
+/** Room kept free around the panels, in pixels, on each side. */
+export type Margins = { top: number; right: number; bottom: number; left: number };
+
 /**
- * The camera that shows every panel whole and centred in the viewport, with a margin in
- * pixels on every side.
+ * The body map's room around the panels when fitting: each panel's name and needle ruler sit above
+ * it, its course ruler to its left, so more is kept free there than below and to the right.
+ */
+export const panelChromeMargins: Margins = { top: 52, right: 24, bottom: 24, left: 56 };
+
+/**
+ * The camera that shows every panel whole and centred in the viewport less its margins
+ * (pixels: one number for every side, or one per side).
  */
 export function fitCamera(
   panels: readonly Panel[],
   textures: TextureLookup,
   gapCm: number,
   viewport: Viewport,
-  marginPx = 32,
+  margin: number | Margins = panelChromeMargins,
 ): Camera {
+  const m: Margins = typeof margin === 'number' ? { top: margin, right: margin, bottom: margin, left: margin } : margin;
   const unit = layoutPanels(panels, { pxPerCm: 1, pan: { x: 0, y: 0 } }, textures, gapCm);
   const last = unit[unit.length - 1];
-  if (!last) return { pxPerCm: 10, pan: { x: marginPx, y: marginPx } };
+  if (!last) return { pxPerCm: 10, pan: { x: m.left, y: m.top } };
   const widthCm = last.leftCm + last.widthCm;
   const heightCm = Math.max(...unit.map((l) => l.heightCm));
-  const availW = Math.max(1, viewport.widthPx - 2 * marginPx);
-  const availH = Math.max(1, viewport.heightPx - 2 * marginPx);
+  const availW = Math.max(1, viewport.widthPx - m.left - m.right);
+  const availH = Math.max(1, viewport.heightPx - m.top - m.bottom);
   const pxPerCm = clampZoom(Math.min(availW / widthCm, availH / heightCm));
   return {
     pxPerCm,
-    pan: { x: (viewport.widthPx - widthCm * pxPerCm) / 2, y: (viewport.heightPx - heightCm * pxPerCm) / 2 },
+    pan: { x: m.left + (availW - widthCm * pxPerCm) / 2, y: m.top + (availH - heightCm * pxPerCm) / 2 },
   };
 }
 

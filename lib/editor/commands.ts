@@ -154,9 +154,19 @@ export function setZoneFunction(doc: BodyMapDocument, zoneIds: Iterable<string>,
   return updateZones(doc, zoneIds, (zone) => (zone.fn === fn ? zone : { ...zone, fn }));
 }
 
-/** The document with zones given a texture from the library. */
-export function setZoneTexture(doc: BodyMapDocument, zoneIds: Iterable<string>, textureId: string): BodyMapDocument {
-  return updateZones(doc, zoneIds, (zone) => (zone.textureId === textureId ? zone : { ...zone, textureId }));
+/**
+ * The document with zones given a texture from the library. With `textures`, a zone whose tag
+ * followed its old texture (the same function, or an old texture made for none) takes the new
+ * texture's function; a tag the designer chose otherwise stays.
+ */
+export function setZoneTexture(doc: BodyMapDocument, zoneIds: Iterable<string>, textureId: string, textures?: TextureLookup): BodyMapDocument {
+  const next = textures?.[textureId]?.fn ?? null;
+  return updateZones(doc, zoneIds, (zone) => {
+    if (zone.textureId === textureId) return zone;
+    const old = textures?.[zone.textureId]?.fn ?? null;
+    const follows = next !== null && (old === null || old === zone.fn);
+    return follows ? { ...zone, textureId, fn: next } : { ...zone, textureId };
+  });
 }
 
 /** A panel whose zones are `ordered` (bottom to top), with `order` renumbered 0…n−1. */

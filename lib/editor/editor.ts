@@ -528,6 +528,8 @@ export class Editor {
         textureId: props.textureId ?? drawTextureId(this.current, panelId) ?? panel.baseTextureId,
         fn: props.fn ?? this.current.drawDefaults.fn,
       };
+      // A new zone is tagged with what its texture is made for, when the texture says.
+      zone.fn = props.fn ?? this.current.textures[zone.textureId]?.fn ?? zone.fn;
       if (!this.change('Add zone', (doc) => cmd.addZone(doc, panelId, polygon, zone))) return null;
       this.host.setSelection(zoneSelection([id]));
       return id;
@@ -623,7 +625,7 @@ export class Editor {
   setZoneTexture(textureId: string, zoneIds?: readonly string[]): boolean {
     return this.batch(() => {
       const ids = this.ids(zoneIds);
-      return this.change('Set texture', (doc) => cmd.setZoneTexture(doc, ids, textureId));
+      return this.change('Set texture', (doc) => cmd.setZoneTexture(doc, ids, textureId, this.current.textures));
     });
   }
 

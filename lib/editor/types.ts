@@ -22,6 +22,11 @@ export interface TextureInfo {
   walesPerCm: number;
   /** Relaxed density along the fabric. */
   coursesPerCm: number;
+  /**
+   * The function the texture is made for, if any. A zone given the texture takes it as its tag,
+   * unless the designer has tagged the zone otherwise.
+   */
+  fn?: ZoneFunction | null;
 }
 
 /** Texture id → what the editor needs of it. Textures missing here fall back to defaults. */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { centreOn, layoutPanels, screenToStitch, stitchToScreen, zoomLimits } from '@/lib/editor/camera';
+import { centreOn, layoutPanels, panelChromeMargins, screenToStitch, stitchToScreen, zoomLimits } from '@/lib/editor/camera';
 import { TestEditor, bodyDocument, bodyPanel, rectZone, textures } from './test-editor';
 
 describe('layout', () => {
@@ -90,9 +90,15 @@ describe('zoom', () => {
     expect(top).toBeGreaterThanOrEqual(0);
     expect(right).toBeLessThanOrEqual(1000);
     expect(bottom).toBeLessThanOrEqual(600);
-    // tall panels: the height fills the viewport less its margins, centred across
-    expect(bottom - top).toBeCloseTo(600 - 2 * 32, 6);
-    expect(left).toBeCloseTo(1000 - right, 6);
+    // Room is kept above for each panel's name and needle ruler (drawn up to 40 px above it) and
+    // to the left for the course ruler (labels up to 50 px to the left).
+    expect(top).toBeGreaterThanOrEqual(40);
+    expect(left).toBeGreaterThanOrEqual(50);
+    // tall panels: the height fills the viewport less its margins, centred across between them
+    const m = panelChromeMargins;
+    expect(top).toBeCloseTo(m.top, 6);
+    expect(bottom - top).toBeCloseTo(600 - m.top - m.bottom, 6);
+    expect(left - m.left).toBeCloseTo(1000 - m.right - right, 6);
   });
 
   it('zooms in and out at the cursor with the zoom tool', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { TestEditor, bodyDocument, bodyPanel, rectZone } from './test-editor';
+import { TestEditor, bodyDocument, bodyPanel, rectZone, textures } from './test-editor';
 import { moveOutlineVertex, restorePanels, setCutOutline } from '@/lib/editor/commands';
 
 function setup() {
@@ -240,6 +240,33 @@ describe('zone properties', () => {
     t.editor.undo();
     expect(t.zone('a').name).toBe('a');
     expect(t.state.canUndo).toBe(false);
+  });
+
+  it('a zone takes the function of the texture it is given, unless the designer tagged it otherwise', () => {
+    const made = { ...textures, vent: { ...textures.mesh!, fn: 'ventilation' as const }, squeeze: { ...textures.rib!, fn: 'compression' as const } };
+    const t = new TestEditor({ textures: made, doc: setup().state.doc });
+    // 'a' is on rib (made for nothing): it follows the new texture's function.
+    t.editor.setZoneTexture('vent', ['a']);
+    expect(t.zone('a')).toMatchObject({ textureId: 'vent', fn: 'ventilation' });
+    // Its tag followed 'vent', so it follows again to 'squeeze'.
+    t.editor.setZoneTexture('squeeze', ['a']);
+    expect(t.zone('a').fn).toBe('compression');
+    // A tag chosen by hand stays when the texture changes.
+    t.editor.setZoneFunction('hem', ['a']);
+    t.editor.setZoneTexture('vent', ['a']);
+    expect(t.zone('a')).toMatchObject({ textureId: 'vent', fn: 'hem' });
+    // A texture made for nothing leaves the tag as it is.
+    t.editor.setZoneTexture('jersey', ['a']);
+    expect(t.zone('a')).toMatchObject({ textureId: 'jersey', fn: 'hem' });
+  });
+
+  it('a new zone is tagged with what its texture is made for', () => {
+    const made = { ...textures, vent: { ...textures.mesh!, fn: 'ventilation' as const } };
+    const t = new TestEditor({ textures: made, doc: setup().state.doc });
+    const id = t.editor.addZone('front', [{ x: 10, y: 100 }, { x: 60, y: 100 }, { x: 60, y: 160 }], { textureId: 'vent' });
+    expect(t.zone(id!).fn).toBe('ventilation');
+    const plain = t.editor.addZone('front', [{ x: 10, y: 200 }, { x: 60, y: 200 }, { x: 60, y: 260 }], { textureId: 'jersey' });
+    expect(t.zone(plain!).fn).toBe('compression');
   });
 
   it('edits vertices by command and refuses crossing edges', () => {
