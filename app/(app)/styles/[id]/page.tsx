@@ -1,9 +1,12 @@
+import type { Metadata } from 'next';
 import { can } from '@/lib/auth/roles';
 import { Card } from '@/components/ui/card';
 import { StyleForm } from '@/components/styles/style-form';
 import { SharesPanel } from '@/components/styles/shares-panel';
 import { BriefSection } from '@/components/brief/brief-section';
 import { workingCopyStyle } from '@/components/workspace/workspace-style';
+
+export const metadata: Metadata = { title: 'Brief' };
 
 export default async function StyleBriefPage({ params }: { params: Promise<{ id: string }> }) {
   const { user, style } = await workingCopyStyle((await params).id);

@@ -1,8 +1,11 @@
+import type { Metadata } from 'next';
 import { listStyleAudit } from '@/lib/db/audit';
 import { isOutsideRole } from '@/lib/auth/roles';
 import { Card } from '@/components/ui/card';
 import { describeAudit } from '@/components/workspace/describe-audit';
 import { workspaceStyle } from '@/components/workspace/workspace-style';
+
+export const metadata: Metadata = { title: 'History' };
 
 export default async function StyleHistoryPage({ params }: { params: Promise<{ id: string }> }) {
   const { user, style } = await workspaceStyle((await params).id);

@@ -1,3 +1,4 @@
+import type { Metadata } from 'next';
 import { notFound, redirect } from 'next/navigation';
 import { currentUser } from '@/lib/auth/authorize';
 import { can, canSeeCosts } from '@/lib/auth/roles';
@@ -5,6 +6,8 @@ import { loadQuote } from '@/lib/db/quotes';
 import { findStyle } from '@/lib/db/styles';
 import { idParamSchema } from '@/lib/validations/style';
 import { QuoteSection } from '@/components/quote/quote-section';
+
+export const metadata: Metadata = { title: 'Quote' };
 
 export default async function StyleQuotePage({ params }: { params: Promise<{ id: string }> }) {
   const user = await currentUser();
