@@ -39,7 +39,9 @@ export function BriefVersions({ styleId, initial }: { styleId: string; initial: 
               {i === 0 ? <span className="text-ink-faint"> (current)</span> : null}
               <span className="text-ink-soft"> · {new Date(v.savedAt).toLocaleString()}{v.savedBy ? ` · ${v.savedBy}` : ''}</span>
               <span className="block text-xs text-ink-faint">
-                {v.changes.length
+                {v.version === 1 && !v.earlierUnknown
+                  ? `The first version: ${v.changes.length} answer${v.changes.length === 1 ? '' : 's'} filled in`
+                  : v.changes.length
                   ? `Changed: ${v.changes.map((c) => briefFieldLabels[c.field].toLowerCase()).join(', ')}`
                   : v.earlierUnknown ? 'The earliest version kept' : 'Saved with no change'}
               </span>
