@@ -57,6 +57,11 @@ is_running() {
   [ -f "$DATA/PG_VERSION" ] && as_postgres "$bin/pg_ctl" -D "$DATA" status >/dev/null 2>&1
 }
 
+# The port the running server listens on (line 4 of postmaster.pid), or nothing.
+running_port() {
+  [ -f "$DATA/postmaster.pid" ] && sed -n 4p "$DATA/postmaster.pid"
+}
+
 psql_admin() {
   local bin; bin="$(find_bin)"
   as_postgres "$bin/psql" -h "$RUN" -p "$PGPORT" -U postgres -v ON_ERROR_STOP=1 -qAt "$@"
@@ -74,6 +79,12 @@ start() {
     echo "Creating a PostgreSQL cluster in $DATA"
     as_postgres "$bin/initdb" -D "$DATA" -U postgres --auth-local=trust --auth-host=scram-sha-256 \
       --encoding=UTF8 --locale=C.UTF-8 >/dev/null
+  fi
+  if is_running && [ "$(running_port)" != "$PGPORT" ]; then
+    # One cluster listens on one port: a server started from this folder with another
+    # NEEDLEMAP_PG_PORT is moved to the port asked for now.
+    echo "PostgreSQL in $DATA is running on port $(running_port); restarting it on $PGPORT"
+    as_postgres "$bin/pg_ctl" -D "$DATA" -m fast -w stop >/dev/null
   fi
   if is_running; then
     echo "PostgreSQL already running on 127.0.0.1:$PGPORT"
@@ -112,7 +123,7 @@ stop() {
 case "${1:-}" in
   start) start; create_db "${NEEDLEMAP_DB:-needlemap}" ;;
   stop) stop ;;
-  status) if is_running; then echo "running on 127.0.0.1:$PGPORT"; else echo "stopped"; fi ;;
+  status) if is_running; then echo "running on 127.0.0.1:$(running_port)"; else echo "stopped"; fi ;;
   create-db) create_db "$2" ;;
   drop-db) drop_db "$2" ;;
   *) echo "usage: bash db/setup.sh start|stop|status|create-db NAME|drop-db NAME" >&2; exit 2 ;;
