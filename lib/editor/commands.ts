@@ -3,7 +3,7 @@
  * document when it changes nothing (an unknown id, a refused edit), which the editor takes as
  * "nothing to record". Zones stay inside their panel's bounds and stay simple polygons.
  */
-import type { Panel, StitchPoint, StitchPolygon, Zone, ZoneFunction } from '@/lib/knit/panel';
+import { panelLimits, type Panel, type StitchPoint, type StitchPolygon, type Zone, type ZoneFunction } from '@/lib/knit/panel';
 import { counterpartPanel, findPanel, findZone, nextZoneOrder, updatePanel, updateZone, updateZones, zonesInDrawOrder } from './document';
 import { copyZoneToPanel, isSimplePolygon, mirrorZone, polygonBounds, translatePolygon } from './geometry';
 import { clampDeltaToPanel, clampPointToPanel, clampPolygonToPanel, repeatOf } from './snapping';
@@ -12,6 +12,7 @@ import type { BodyMapDocument, DrawProblem, TextureLookup } from './types';
 /** Why a polygon cannot be a zone, or null when it can. */
 export function zonePolygonProblem(polygon: readonly StitchPoint[]): DrawProblem | null {
   if (polygon.length < 3) return 'too-few-points';
+  if (polygon.length > panelLimits.maxVertices) return 'too-many-points';
   if (isSimplePolygon(polygon)) return null;
   return allCollinear(polygon) ? 'zero-area' : 'self-intersecting';
 }
@@ -21,6 +22,11 @@ function allCollinear(points: readonly StitchPoint[]): boolean {
   const b = points.find((p) => p.x !== a.x || p.y !== a.y);
   if (!b) return true;
   return points.every((p) => Math.abs((b.x - a.x) * (p.y - a.y) - (b.y - a.y) * (p.x - a.x)) < 1e-9);
+}
+
+/** Whether a panel holds as many zones as a body map may keep on one panel. */
+export function panelIsFull(panel: Panel): boolean {
+  return panel.zones.length >= panelLimits.maxZonesPerPanel;
 }
 
 export interface NewZone {
@@ -39,6 +45,7 @@ export function addZone(doc: BodyMapDocument, panelId: string, polygon: readonly
     const clamped = clampPolygonToPanel(polygon, panel);
     if (zonePolygonProblem(clamped)) return panel;
     if (panel.zones.some((z) => z.id === props.id)) return panel;
+    if (panelIsFull(panel)) return panel;
     const zone: Zone = { ...props, order: nextZoneOrder(panel), polygon: clamped };
     return { ...panel, zones: [...panel.zones, zone] };
   });
@@ -126,7 +133,7 @@ export function moveVertex(doc: BodyMapDocument, zoneId: string, index: number, 
  */
 export function insertVertex(doc: BodyMapDocument, zoneId: string, index: number, point: StitchPoint): BodyMapDocument {
   return updateZone(doc, zoneId, (zone, panel) => {
-    if (index < 0 || index > zone.polygon.length) return zone;
+    if (index < 0 || index > zone.polygon.length || zone.polygon.length >= panelLimits.maxVertices) return zone;
     const polygon = zone.polygon.slice();
     polygon.splice(index, 0, clampPointToPanel(point, panel));
     return isSimplePolygon(polygon) ? { ...zone, polygon } : zone;

@@ -4,7 +4,7 @@
  * forwards pointer, key and wheel events, and calls the commands from its buttons and zone list.
  * Listeners hear once per event or command, and only when the state changed.
  */
-import type { StitchPolygon, Panel, ScreenPoint, StitchPoint, ZoneFunction } from '@/lib/knit/panel';
+import { panelLimits, type StitchPolygon, type Panel, type ScreenPoint, type StitchPoint, type ZoneFunction } from '@/lib/knit/panel';
 import {
   centreOn,
   fitCamera,
@@ -61,6 +61,8 @@ export interface EditorOptions {
 export const cssPxPerCm = 96 / 2.54;
 /** One step of the zoom buttons. */
 export const zoomStep = Math.SQRT2;
+
+const panelFullNotice = `A panel holds at most ${panelLimits.maxZonesPerPanel} zones: some copies did not fit`;
 
 const emptySelection: Selection = { zoneIds: [], vertex: null, outlineVertex: null };
 
@@ -660,8 +662,14 @@ export class Editor {
         return r.doc;
       });
       if (created.length > 0) this.host.setSelection(zoneSelection(created));
+      if (created.length < ids.length && this.someFull()) this.set({ notice: panelFullNotice });
       return created;
     });
+  }
+
+  /** Whether a panel of the map holds as many zones as it may. */
+  private someFull(): boolean {
+    return this.current.doc.panels.some((p) => cmd.panelIsFull(p));
   }
 
   /** Copy zones (the selection by default) to the other panel of their pair and select the copies. */
@@ -675,7 +683,8 @@ export class Editor {
         return r.doc;
       });
       if (created.length > 0) this.host.setSelection(zoneSelection(created));
-      else if (ids.length > 0) this.set({ notice: 'No other panel to copy to' });
+      if (created.length < ids.length && this.someFull()) this.set({ notice: panelFullNotice });
+      else if (created.length === 0 && ids.length > 0) this.set({ notice: 'No other panel to copy to' });
       return created;
     });
   }

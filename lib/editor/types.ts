@@ -93,7 +93,7 @@ export type HitTarget =
   | { kind: 'panel'; panelId: string; point: StitchPoint };
 
 /** Why the draw tool refused a point or a close. */
-export type DrawProblem = 'too-few-points' | 'self-intersecting' | 'zero-area';
+export type DrawProblem = 'too-few-points' | 'too-many-points' | 'self-intersecting' | 'zero-area' | 'panel-full';
 
 /** The active tool and the state it is in. Each variant has its own file under `tools/`. */
 export type ToolState =

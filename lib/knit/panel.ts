@@ -25,6 +25,12 @@ export interface ScreenPoint {
 /** A closed polygon in stitch space; the last vertex connects back to the first. */
 export type StitchPolygon = StitchPoint[];
 
+/**
+ * Largest body map the product keeps: a wide body-size cylinder and a long garment, and what one
+ * panel may hold. The save route refuses more; the editor stops the designer before that.
+ */
+export const panelLimits = { maxNeedles: 4000, maxCourses: 8000, maxVertices: 400, maxZonesPerPanel: 200, maxPanels: 8 } as const;
+
 export const zoneFunctions = [
   'compression',
   'ventilation',

@@ -1,9 +1,8 @@
 import { z } from 'zod';
-import { panelKinds, zoneFunctions } from '@/lib/knit/panel';
+import { panelKinds, panelLimits, zoneFunctions } from '@/lib/knit/panel';
 import { isSimplePolygon } from '@/lib/knit/raster';
 
-/** Largest panel the editor accepts: a wide body-size cylinder and a long garment. */
-export const panelLimits = { maxNeedles: 4000, maxCourses: 8000, maxVertices: 400, maxZonesPerPanel: 200, maxPanels: 8 } as const;
+export { panelLimits };
 
 /** The largest body-map save the route reads (a busy map of 8 panels is well under 1 MB as JSON). */
 export const bodyMapMaxBytes = 4 * 1024 * 1024;

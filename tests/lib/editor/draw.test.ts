@@ -180,3 +180,42 @@ describe('draw zone tool', () => {
     expect(t.panel('front').zones).toHaveLength(0);
   });
 });
+
+describe('the limits of what a body map keeps', () => {
+  // The save route refuses a panel of more than 200 zones and a zone of more than 400 points
+  // (lib/validations/body-map.ts); the editor must stop the designer before a save would fail.
+  const fullPanel = () => Array.from({ length: 200 }, (_, i) => rectZone(`z${i}`, (i % 20) * 11 + 1, Math.floor(i / 20) * 30 + 40, 8, 20, { order: i }));
+
+  it('a full panel takes no new zone, and says why', () => {
+    const t = new TestEditor({ doc: bodyDocument(fullPanel()) });
+    t.keyDown('d');
+    t.clickPoints('front', [{ x: 20, y: 350 }, { x: 60, y: 350 }, { x: 60, y: 390 }]);
+    t.keyDown('Enter');
+    expect(t.panel('front').zones).toHaveLength(200);
+    expect(t.state.notice).toMatch(/at most 200 zones/);
+    // the back panel still takes one
+    t.keyDown('Escape');
+    t.keyDown('d');
+    t.clickPoints('back', square.slice(0, 3));
+    t.keyDown('Enter');
+    expect(t.panel('back').zones).toHaveLength(1);
+  });
+
+  it('copies that do not fit on a full panel are refused with a notice', () => {
+    const t = new TestEditor({ doc: bodyDocument([rectZone('a', 20, 30, 40, 60)], fullPanel()) });
+    t.editor.select(['a']);
+    t.keyDown('c');
+    expect(t.panel('back').zones).toHaveLength(200);
+    expect(t.state.notice).toMatch(/at most 200 zones/);
+  });
+
+  it('a zone takes no more than 400 points', () => {
+    const ring = Array.from({ length: 400 }, (_, i) => {
+      const a = (2 * Math.PI * i) / 400;
+      return { x: 120 + 100 * Math.cos(a), y: 200 + 150 * Math.sin(a) };
+    });
+    const t = new TestEditor({ doc: bodyDocument([{ ...rectZone('ring', 0, 0, 1, 1), polygon: ring }]) });
+    expect(t.editor.insertVertex('ring', 1, { x: 220, y: 201 })).toBe(false);
+    expect(t.points('ring')).toHaveLength(400);
+  });
+});

@@ -4,7 +4,9 @@
  * an earlier edge is refused, and so is a closed polygon that is not simple.
  */
 import { panelLayout, stitchToScreen } from '../../camera';
-import { zonePolygonProblem } from '../../commands';
+import { panelIsFull, zonePolygonProblem } from '../../commands';
+import { findPanel } from '../../document';
+import { panelLimits } from '@/lib/knit/panel';
 import { chainCrossesItself } from '../../geometry';
 import type { DrawProblem, EditorState, PointerInput } from '../../types';
 import type { StateHandlers, ToolHost, ToolStateOf } from '../tool';
@@ -17,6 +19,8 @@ export const closeRadiusPx = 8;
 
 const problemText: Record<DrawProblem, string> = {
   'too-few-points': 'A zone needs at least 3 points',
+  'too-many-points': `A zone has at most ${panelLimits.maxVertices} points`,
+  'panel-full': `A panel holds at most ${panelLimits.maxZonesPerPanel} zones: merge or delete some first`,
   'self-intersecting': 'Zone edges may not cross',
   'zero-area': 'The points lie on one line',
 };
@@ -38,6 +42,8 @@ function refuse(host: ToolHost, s: Drawing, problem: DrawProblem): void {
 function finish(host: ToolHost, s: Drawing): void {
   const problem = zonePolygonProblem(s.points);
   if (problem) return refuse(host, s, problem);
+  const panel = findPanel(host.state.doc, s.panelId);
+  if (panel && panelIsFull(panel)) return refuse(host, s, 'panel-full');
   const id = host.addZone(s.panelId, s.points);
   if (!id) return refuse(host, s, 'self-intersecting');
   host.notice(null);
@@ -61,6 +67,7 @@ export const drawDrawing: StateHandlers<Drawing> = {
     const last = s.points[s.points.length - 1];
     if (last && last.x === p.x && last.y === p.y) return; // a second click on the same stitch
     const points = [...s.points, p];
+    if (points.length > panelLimits.maxVertices) return refuse(host, s, 'too-many-points');
     if (chainCrossesItself(points)) return refuse(host, s, 'self-intersecting');
     host.notice(null);
     host.setTool({ ...s, points, hover: p, overFirst: false, problem: null });
