@@ -7,7 +7,6 @@ import { ruleLimitSourceLabels, type StudioRuleLimits } from '@/lib/rules/limits
 import { defaultRuleLimits, type RuleLimits } from '@/lib/rules/types';
 import { decimalText } from '@/lib/validations/number';
 import { Button } from '@/components/ui/button';
-import { Card } from '@/components/ui/card';
 import { Field, Input } from '@/components/ui/field';
 
 const keys = ['maxFloatMm', 'maxTuckStack'] as const satisfies readonly (keyof RuleLimits)[];
@@ -49,8 +48,15 @@ export function MachineLimitsForm({ initial, editable }: { initial: StudioRuleLi
     }
   }
 
+  // Set once for the studio's machines and rarely changed: folded to one line above the library.
+  const summary = `longest float ${current.limits.maxFloatMm} mm (${ruleLimitSourceLabels[current.source.maxFloatMm]}) · at most ${current.limits.maxTuckStack} tucks stacked (${ruleLimitSourceLabels[current.source.maxTuckStack]})`;
   return (
-    <Card title="Machine limits" className="mb-4">
+    <details className="mb-4 rounded-[var(--radius-card)] border border-rule bg-panel shadow-[0_1px_2px_rgba(31,36,40,0.04)]">
+      <summary className="cursor-pointer px-4 py-2.5 text-[13px]">
+        <span className="font-semibold tracking-tight text-ink">Machine limits</span>
+        <span className="text-ink-soft"> · {summary}</span>
+      </summary>
+      <div className="border-t border-rule p-4">
       <form className="space-y-3" aria-label="Machine limits" onSubmit={(e) => { e.preventDefault(); void save(); }}>
         <p className="text-xs text-ink-soft">What the studio’s machines knit safely. The texture checks and the body-map rules test floats and tuck stacks against these.</p>
         <fieldset disabled={!editable} className="grid max-w-xl grid-cols-2 gap-3">
@@ -76,6 +82,7 @@ export function MachineLimitsForm({ initial, editable }: { initial: StudioRuleLi
           <p className="text-xs text-ink-faint">The studio admin sets these.</p>
         )}
       </form>
-    </Card>
+      </div>
+    </details>
   );
 }
