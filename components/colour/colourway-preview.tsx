@@ -4,7 +4,7 @@ import { useId, useMemo } from 'react';
 import { average, formatHex } from 'culori';
 import { layoutPanels, zonesInDrawOrder, type TextureLookup } from '@/lib/editor';
 import { faceYarnGrid } from '@/lib/knit/face';
-import { yarnColourMap, yarnLooks, type Colourway as RenderColourway, type YarnLook } from '@/lib/knit/render';
+import { yarnColourMap, yarnLookNotes, yarnLooks, type Colourway as RenderColourway, type YarnLook } from '@/lib/knit/render';
 import type { Panel, StitchPolygon } from '@/lib/knit/panel';
 import type { Texture } from '@/lib/knit/texture';
 import type { Yarn } from '@/lib/knit/yarn';
@@ -167,17 +167,11 @@ export function ColourwayPreview({
   );
 }
 
-const markText: Partial<Record<YarnLook['source'], string>> = {
-  undyeable: 'has a target but takes no dye: shown undyed',
-  bath: 'no target of its own: shown in the colour of the garment bath that dyes it',
-  'no-target': 'no target, and no bath dyes it: shown undyed',
-};
-
 /** The yarns whose preview colour is not simply their target or their own colour, and why. */
 function LookMarks({ yarns, looks }: { yarns: readonly Yarn[]; looks: Readonly<Record<string, YarnLook>> }) {
   const marked = yarns.flatMap((y) => {
     const l = looks[y.id];
-    const text = l ? markText[l.source] : undefined;
+    const text = l ? yarnLookNotes[l.source] : undefined;
     return l && text ? [{ yarn: y, look: l, text }] : [];
   });
   if (marked.length === 0) return null;

@@ -10,7 +10,7 @@ import { listColourways } from './colourways';
 import { notFound } from '@/lib/api/errors';
 import { resolveValues } from '@/lib/fit/grading';
 import { pointsOfMeasure } from '@/lib/fit/points';
-import { packFormat, type PackColour, type PackData, type PackFit, type PackTexture, type PackYarn } from '@/lib/mill/pack-data';
+import { packColourFrom, packFormat, type PackColour, type PackData, type PackFit, type PackTexture, type PackYarn } from '@/lib/mill/pack-data';
 
 function toPackTexture(t: LibraryTexture): PackTexture {
   const out: PackTexture = {
@@ -77,13 +77,11 @@ async function packColour(user: SessionUser, styleId: string, q: Db): Promise<Pa
   const { colourways } = await listColourways(user, styleId, q);
   const cw = colourways[0];
   if (!cw) return null;
-  return {
-    colourwayName: cw.name,
-    route: cw.plan?.route ?? 'none',
-    standards: cw.targets.map((t) => ({ name: t.standardName ? `${t.name} (${t.standardName})` : t.name, lab: t.colour, yarnIds: [...t.yarnIds], source: 'colourway' as const })),
-    baths: (cw.plan?.baths ?? []).map((b) => ({ dyeClass: `${b.dyeClass} (${b.stage})`, temperatureC: b.temperatureC, yarnIds: [...b.yarnIds] })),
-    findings: (cw.plan?.findings ?? []).map((f) => `${f.message}${f.instead ? ` ${f.instead}` : ''}`),
-  };
+  return packColourFrom(
+    cw.name,
+    cw.targets.map((t) => ({ name: t.standardName ? `${t.name} (${t.standardName})` : t.name, yarnIds: t.yarnIds, colour: t.colour })),
+    cw.plan,
+  );
 }
 
 /**

@@ -238,6 +238,17 @@ export function yarnLooks(yarns: YarnLookup, colourway?: Colourway): Record<stri
   return out;
 }
 
+/**
+ * Why a yarn's colourway colour is not simply its target or its own colour, by look source: the
+ * short legend line the preview and the exports print beside such a yarn. Sources without a note
+ * show what they say (own colour, target, pale elastane, no colourway).
+ */
+export const yarnLookNotes: Readonly<Partial<Record<YarnLookSource, string>>> = {
+  undyeable: 'has a target but takes no dye: shown undyed',
+  bath: 'no target of its own: shown in the colour of the garment bath that dyes it',
+  'no-target': 'no target, and no bath dyes it: shown undyed',
+};
+
 /** Preview colour (sRGB hex) of each yarn, by yarn id: the `hex` of `yarnLooks`. */
 export function yarnColourMap(yarns: YarnLookup, colourway?: Colourway): Record<string, string> {
   return Object.fromEntries(Object.entries(yarnLooks(yarns, colourway)).map(([id, l]) => [id, l.hex]));

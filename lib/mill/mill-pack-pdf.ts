@@ -12,8 +12,9 @@ import { rasterizePanel } from '@/lib/knit/raster';
 import { parseHexColour } from '@/lib/knit/render-bitmap';
 import { zoneFunctionLabels, type Panel, type StitchPolygon } from '@/lib/knit/panel';
 import { labelCaution } from '@/lib/knit/content';
+import { yarnLookNotes, type YarnLook } from '@/lib/knit/render';
 import {
-  consumptionPerSize, machineNeedles, packSummary, packTextureColours, panelLengthCm, panelWidthCm, paperSizes, standardHex,
+  consumptionPerSize, machineNeedles, packSummary, packTextureColours, packYarnLooks, panelLengthCm, panelWidthCm, paperSizes, standardHex,
   textureFacts, yarnColourStandards, yarnColourText, yarnCountText, yarnFibreText, type PackApproval, type PackData, type PaperSize,
 } from './pack-data';
 import { encodeRgbPng } from './png';
@@ -72,6 +73,31 @@ function table(
     y += rowH;
   }
   return y + 2;
+}
+
+/**
+ * How a yarn shows in the pack's colourway, in words: the preview's legend line where it has one
+ * (undyeable, bath colour, undyed without a target), else what the colour is.
+ */
+function lookText(data: PackData, yarnId: string, look: YarnLook): string {
+  const note = yarnLookNotes[look.source];
+  if (note) return note;
+  switch (look.source) {
+    case 'own': {
+      const state = data.yarns.find((y) => y.id === yarnId)?.colour.state;
+      return `comes ${state === 'yarn-dyed' ? 'yarn-dyed' : 'dope-dyed'}: its own colour`;
+    }
+    case 'target': {
+      const st = data.colour?.standards.find((x) => x.source === 'colourway' && x.yarnIds.includes(yarnId));
+      return st ? `target ${st.name}` : 'its target';
+    }
+    case 'pale':
+      return 'takes little dye: stays pale whatever the bath';
+    case 'undyed':
+      return 'undyed: no colourway';
+    default:
+      return '';
+  }
 }
 
 function heading(doc: jsPDF, text: string, x: number, y: number): number {
@@ -394,6 +420,34 @@ export async function millPackPdf(
     font(doc, 'mono', 7.5, ink.soft);
     doc.text(`L* ${fx(st.lab.L, 2)}  a* ${fx(st.lab.a, 2)}  b* ${fx(st.lab.b, 2)}  (D65/10°) · ${st.source} · ${st.yarnIds.map((id) => yarnName.get(id) ?? id).join(', ')}`, m + 12, y + 3.6, { maxWidth: w - 2 * m - 12 });
     y += 10;
+  }
+  // The yarns as they come out of the dye plan: the colours the panels' tiles and swatches show.
+  const looks = packYarnLooks(data);
+  y = heading(doc, 'Yarns as dyed (the colours the swatches show)', m, y + 2);
+  if (data.colour && !data.colour.plan) {
+    font(doc, 'regular', 8, ink.soft);
+    const wrapped = doc.splitTextToSize('This revision was released before its dye plan was kept with it: dyeable yarns are shown in their target colours.', w - 2 * m) as string[];
+    doc.text(wrapped, m, y);
+    y += wrapped.length * 3.6 + 2;
+  }
+  for (const yn of data.yarns) {
+    const look = looks[yn.id];
+    if (!look) continue;
+    if (y > p.heightMm - m - 10) {
+      doc.addPage();
+      pageChrome(p, { ...head, title: 'Colour standards and dye plan (continued)' }, false);
+      y = m + 14;
+    }
+    doc.setFillColor(look.hex);
+    doc.setDrawColor(ink.rule);
+    doc.rect(m, y - 3, 6, 4, 'FD');
+    font(doc, 'bold', 8, ink.text);
+    doc.text(yn.name, m + 9, y);
+    const nameW = doc.getTextWidth(yn.name);
+    font(doc, 'regular', 7.5, yarnLookNotes[look.source] ? ink.warn : ink.soft);
+    const wrapped = doc.splitTextToSize(`${look.hex} · ${lookText(data, yn.id, look)}`, w - 2 * m - 12 - nameW) as string[];
+    wrapped.forEach((l, i) => doc.text(l, m + 9 + nameW + 3, y + i * 3.4));
+    y += Math.max(6, wrapped.length * 3.4 + 2.6);
   }
   if (data.colour?.baths.length) {
     y = heading(doc, 'Dye baths, in order', m, y + 2);

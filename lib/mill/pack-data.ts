@@ -13,7 +13,8 @@ import { cylinderNeedles, tubeHalfWidthCm } from '@/lib/fit/needles';
 import { formatCount, type CountUnit } from '@/lib/knit/count';
 import { fibres as fibreRegistry } from '@/lib/knit/fibres';
 import type { Panel, PanelKind } from '@/lib/knit/panel';
-import { flatColoursForTextures, yarnColourMap, type Colourway } from '@/lib/knit/render';
+import type { ColourwayPlan } from '@/lib/colour/colourway';
+import { flatColoursForTextures, yarnColourMap, yarnLooks, type Colourway, type PreviewPlan, type YarnLook, type YarnLookSource } from '@/lib/knit/render';
 import { summariseBodyMap, type BodyMapSummary } from '@/lib/knit/summary';
 import {
   arealDensity, repeatSizeMm, stitchesPerCm2, textureYarnIds, yarnPerRepeat, type Feeder, type Texture, type YarnUse,
@@ -92,6 +93,12 @@ export interface PackColour {
   baths: { dyeClass: string; temperatureC: number; yarnIds: string[] }[];
   /** Findings of the dye plan, in words. */
   findings: string[];
+  /**
+   * The parts of the dye plan that decide how each yarn comes out of it (`yarnLooks`): baths with
+   * their stage, order, colour and fibres, findings with their kind and severity. Absent in
+   * snapshots released before it was kept: those show dyeable yarns in their target colours.
+   */
+  plan?: PreviewPlan;
 }
 
 export interface PackFitSize {
@@ -149,8 +156,9 @@ export interface FeederLine {
   /** Feeder set letter (A, B, …) and the courses of the repeat that use it (0-based). */
   letter: string;
   courses: number[];
-  ground: { id: string; name: string; count: string; hex: string };
-  plated: { id: string; name: string; count: string; hex: string; draft: number } | null;
+  /** `hex` and `source`: how the yarn comes out of the colourway's dye plan (`packYarnLooks`); null for a yarn missing from the pack. */
+  ground: { id: string; name: string; count: string; hex: string; source: YarnLookSource | null };
+  plated: { id: string; name: string; count: string; hex: string; source: YarnLookSource | null; draft: number } | null;
 }
 
 export interface TextureFacts {
@@ -172,12 +180,52 @@ function sameFeeder(a: Feeder, b: Feeder): boolean {
   return a.plated.yarn === b.plated.yarn && a.plated.draft === b.plated.draft;
 }
 
-/** Yarn preview colours (hex) by id: the colourway's targets for dyeable yarns when there is one. */
+/**
+ * The pack's colour part from a colourway: its targets as colour standards, its baths and findings
+ * in words, and the parts of its dye plan (`planColourway`) that `yarnLooks` reads. Without a plan
+ * (none could be made) there are no baths or findings.
+ */
+export function packColourFrom(
+  colourwayName: string,
+  targets: readonly { name: string; yarnIds: readonly string[]; colour: Lab }[],
+  plan: ColourwayPlan | null,
+): PackColour {
+  return {
+    colourwayName,
+    route: plan?.route ?? 'none',
+    standards: targets.map((t) => ({ name: t.name, lab: t.colour, yarnIds: [...t.yarnIds], source: 'colourway' as const })),
+    baths: (plan?.baths ?? []).map((b) => ({ dyeClass: `${b.dyeClass} (${b.stage})`, temperatureC: b.temperatureC, yarnIds: [...b.yarnIds] })),
+    findings: (plan?.findings ?? []).map((f) => `${f.message}${f.instead ? ` ${f.instead}` : ''}`),
+    ...(plan
+      ? {
+          plan: {
+            baths: plan.baths.map((b) => ({ stage: b.stage, order: b.order, colour: b.colour, fibres: [...b.fibres], yarnIds: [...b.yarnIds] })),
+            findings: plan.findings.map((f) => ({ kind: f.kind, severity: f.severity, yarnIds: [...f.yarnIds] })),
+          },
+        }
+      : {}),
+  };
+}
+
+/** The pack's colourway as the renderer takes it: its targets and, when kept, its dye plan. */
+export function packColourway(data: PackData): Colourway | undefined {
+  if (!data.colour) return undefined;
+  const targets = data.colour.standards.filter((s) => s.source === 'colourway').map((s) => ({ yarnIds: s.yarnIds, colour: s.lab }));
+  return data.colour.plan ? { targets, plan: data.colour.plan } : { targets };
+}
+
+/**
+ * How each yarn of the pack shows, by id: `yarnLooks` over the pack's colourway, so the exports
+ * show the dyed result as the Colour section's preview does (undyeable yarns undyed, untargeted
+ * yarns in their garment bath's colour or undyed); without a colourway, every yarn undyed.
+ */
+export function packYarnLooks(data: PackData): Record<string, YarnLook> {
+  return yarnLooks(data.yarns, packColourway(data));
+}
+
+/** Yarn colours (hex) by id: the `hex` of `packYarnLooks`. */
 export function packYarnColours(data: PackData): Record<string, string> {
-  const colourway: Colourway | undefined = data.colour
-    ? { targets: data.colour.standards.filter((s) => s.source === 'colourway').map((s) => ({ yarnIds: s.yarnIds, colour: s.lab })) }
-    : undefined;
-  return yarnColourMap(data.yarns, colourway);
+  return yarnColourMap(data.yarns, packColourway(data));
 }
 
 /** Index colours of the style's textures (stable for the set). */
@@ -208,7 +256,7 @@ export function yarnColourText(c: YarnColour): string {
  */
 export function textureFacts(data: PackData): TextureFacts[] {
   const yarnById = new Map(data.yarns.map((y) => [y.id, y]));
-  const colours = packYarnColours(data);
+  const looks = packYarnLooks(data);
   const index = packTextureColours(data);
   return data.textures.map((t) => {
     const problems: string[] = [];
@@ -226,7 +274,8 @@ export function textureFacts(data: PackData): TextureFacts[] {
     }
     const yarnLine = (id: string) => {
       const y = yarnById.get(id);
-      return { id, name: y?.name ?? id, count: y ? yarnCountText(y) : '?', hex: colours[id] ?? '#9a9a96' };
+      const look = looks[id];
+      return { id, name: y?.name ?? id, count: y ? yarnCountText(y) : '?', hex: look?.hex ?? '#9a9a96', source: look?.source ?? null };
     };
     const feeders: FeederLine[] = [];
     t.feeders.forEach((f, course) => {

@@ -8,7 +8,7 @@
  */
 import { TilingPattern, type jsPDF } from 'jspdf';
 import { drawTileToPdf } from '@/lib/knit/render-pdf';
-import { renderTile, repeatsForMinSize } from '@/lib/knit/render';
+import { renderTile, repeatsForMinSize, yarnLookNotes } from '@/lib/knit/render';
 import type { StitchAction } from '@/lib/knit/texture';
 import { packYarnColours, paperSizes, textureFacts, type PackData, type PaperSize, type TextureFacts } from './pack-data';
 import { createPdf, font, fx, ink, MM_PER_INCH, pageChrome, pageNumbers, pdfBytes, pdfPathTarget, scaleBars, type PdfPage } from './pdf';
@@ -228,6 +228,20 @@ function swatchBlock(
     const lines = doc.splitTextToSize(text, cw - 30) as string[];
     lines.forEach((l, i) => doc.text(l, cx + 31.5, y + i * 3.4));
     y += lines.length * 3.4 + 1;
+  }
+  // Yarns whose colour here is not their target or their own, marked as the colourway preview marks them.
+  const marks = new Map<string, string>();
+  for (const line of f.feeders) {
+    for (const yl of [line.ground, line.plated]) {
+      const note = yl?.source ? yarnLookNotes[yl.source] : undefined;
+      if (yl && note) marks.set(yl.id, `${yl.name}: ${note}`);
+    }
+  }
+  for (const text of marks.values()) {
+    font(doc, 'regular', 6.5, ink.warn);
+    const lines = doc.splitTextToSize(text, cw - 24) as string[];
+    lines.forEach((l, i) => doc.text(l, cx + 24, y + 0.4 + i * 3));
+    y += lines.length * 3 + 0.6;
   }
   y += 1.5;
   font(doc, 'regular', 7, ink.soft);

@@ -6,11 +6,12 @@
  * scale (px ÷ the tile's cm); the pHYs chunk carries those two scales, so px ÷ pxPerMetre is the
  * tile's true width and height within half a pixel.
  */
-import { renderTile, repeatsForMinSize } from '@/lib/knit/render';
+import { renderTile, repeatsForMinSize, yarnLookNotes } from '@/lib/knit/render';
+import { textureYarnIds } from '@/lib/knit/texture';
 import { BitmapContext } from '@/lib/knit/render-bitmap';
 import { drawTile } from '@/lib/knit/render-canvas';
 import { encodePng } from './png';
-import { packYarnColours, type PackData } from './pack-data';
+import { packYarnLooks, type PackData } from './pack-data';
 
 export const tileLimits = { minPxPerCm: 20, maxPxPerCm: 400, maxSidePx: 2400, maxRepeats: 200 } as const;
 
@@ -37,7 +38,15 @@ export function tilePng(data: PackData, textureId: string, opts: { pxPerCm: numb
   const fit = repeatsForMinSize(texture, pxPerCm, 256);
   const repeatsX = opts.repeatsX ?? fit.repeatsX;
   const repeatsY = opts.repeatsY ?? fit.repeatsY;
-  const drawing = renderTile(texture, packYarnColours(data), { repeatsX, repeatsY, pxPerCm });
+  const looks = packYarnLooks(data);
+  const colours = Object.fromEntries(Object.entries(looks).map(([id, l]) => [id, l.hex]));
+  const drawing = renderTile(texture, colours, { repeatsX, repeatsY, pxPerCm });
+  // The legend lines of the colourway preview, for the yarns of this texture it marks.
+  const marks = textureYarnIds(texture).flatMap((id) => {
+    const l = looks[id];
+    const note = l ? yarnLookNotes[l.source] : undefined;
+    return note ? [`${data.yarns.find((y) => y.id === id)?.name ?? id}: ${note}`] : [];
+  });
   const widthPx = Math.max(1, Math.round(drawing.widthPx));
   const heightPx = Math.max(1, Math.round(drawing.heightPx));
   if (widthPx > tileLimits.maxSidePx || heightPx > tileLimits.maxSidePx) {
@@ -51,7 +60,10 @@ export function tilePng(data: PackData, textureId: string, opts: { pxPerCm: numb
     pxPerMetre: { x: pxPerCmX * 100, y: pxPerCmY * 100 },
     text: {
       Title: `${data.style.code} ${texture.name}`.replace(/[^\x20-\x7e]/g, '?'),
-      Comment: `${repeatsX} x ${repeatsY} repeats, ${drawing.needles} needles x ${drawing.courses} courses, ${(drawing.widthCm * 10).toFixed(2)} x ${(drawing.heightCm * 10).toFixed(2)} mm relaxed`,
+      Comment: [
+        `${repeatsX} x ${repeatsY} repeats, ${drawing.needles} needles x ${drawing.courses} courses, ${(drawing.widthCm * 10).toFixed(2)} x ${(drawing.heightCm * 10).toFixed(2)} mm relaxed`,
+        ...marks,
+      ].join('. ').replace(/[^\x20-\x7e]/g, '?'),
     },
   });
   return { png, widthPx, heightPx, widthCm: drawing.widthCm, heightCm: drawing.heightCm, repeatsX, repeatsY, pxPerCmX, pxPerCmY };
