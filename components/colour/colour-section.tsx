@@ -5,7 +5,7 @@ import Link from 'next/link';
 import { useQueryClient } from '@tanstack/react-query';
 import { api, ApiError } from '@/lib/api/client';
 import { targetRouteLabels, type ColourwayRoute } from '@/lib/colour/colourway';
-import type { LabDipTolerance } from '@/lib/colour/difference';
+import { toleranceLabel } from '@/lib/colour/difference';
 import type { Colourway, ColourwayTarget, StyleYarn } from '@/lib/db/colourways';
 import { Button } from '@/components/ui/button';
 import { Card, Notice } from '@/components/ui/card';
@@ -34,7 +34,6 @@ export interface ColourAbilities {
 }
 
 const routeLabel = (r: ColourwayRoute) => (r === 'mixed' ? 'Mixed routes' : r === 'none' ? 'No targets yet' : targetRouteLabels[r]);
-const toleranceLabel = (t: LabDipTolerance) => (t.formula === 'cmc' ? `CMC(${t.l}:${t.c}) ≤ ${t.max.toFixed(2)}` : `ΔE00 ≤ ${t.max.toFixed(2)}`);
 
 /** The style workspace's Colour section: colourways, their dye plans, lab dips and a preview. */
 export function ColourSection({ styleId, can }: { styleId: string; can: ColourAbilities }) {

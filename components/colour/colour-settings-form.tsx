@@ -2,14 +2,13 @@
 
 import { useState } from 'react';
 import { api, ApiError } from '@/lib/api/client';
-import { defaultLabDipTolerance, type LabDipTolerance } from '@/lib/colour/difference';
+import { defaultLabDipTolerance, toleranceLabel, type LabDipTolerance } from '@/lib/colour/difference';
 import { defaultLowContrastDeltaE } from '@/lib/colour/dye-plan';
 import type { StudioColourSettings } from '@/lib/db/colourways';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Field, Input, Select } from '@/components/ui/field';
 
-const toleranceText = (t: LabDipTolerance) => `${t.formula === 'cmc' ? `CMC(${t.l}:${t.c})` : 'ΔE00'} ≤ ${t.max.toFixed(2)}`;
 
 type Formula = 'default' | LabDipTolerance['formula'];
 interface FormValues { formula: Formula; l: string; c: string; max: string; lowContrast: string }
@@ -60,14 +59,14 @@ export function ColourSettingsForm({ initial, editable }: { initial: StudioColou
         <fieldset disabled={!editable} className="space-y-3">
           <p className="text-xs text-ink-soft">
             Lab dips for targets entered as CIELAB values (no colour standard) are judged by this tolerance. Dips already sent keep the
-            tolerance they were judged by. Now: {toleranceText(settings.tolerance)}
+            tolerance they were judged by. Now: {toleranceLabel(settings.tolerance)}
             {settings.defaults.includes('tolerance') ? ' (product default)' : ''}.
           </p>
           <div className="grid grid-cols-[1fr_4rem_4rem_5rem] items-end gap-2">
             <Field label="Lab-dip tolerance" error={err('tolerance')}>
               {(id) => (
                 <Select id={id} value={v.formula} onChange={(e) => setV({ ...v, formula: e.target.value as Formula })}>
-                  <option value="default">Product default, {toleranceText(defaultLabDipTolerance)}</option>
+                  <option value="default">Product default, {toleranceLabel(defaultLabDipTolerance)}</option>
                   <option value="cmc">CMC(l:c)</option>
                   <option value="de2000">ΔE00</option>
                 </Select>

@@ -11,7 +11,7 @@ import type { z } from 'zod';
 import { api, ApiError } from '@/lib/api/client';
 import { inSrgbGamut, labToSrgbHex } from '@/lib/colour/convert';
 import type { Lab } from '@/lib/colour/lab';
-import type { LabDipTolerance } from '@/lib/colour/difference';
+import { toleranceLabel } from '@/lib/colour/difference';
 import type { ColourStandard } from '@/lib/db/colour-standards';
 import {
   colourStandardInputSchema, standardSourceLabels, standardSources, type ColourStandardInput,
@@ -24,7 +24,6 @@ import { colourKeys } from './use-colour';
 
 type FormIn = z.input<typeof colourStandardInputSchema>;
 
-const toleranceLabel = (t: LabDipTolerance) => (t.formula === 'cmc' ? `CMC(${t.l}:${t.c}) ≤ ${t.max.toFixed(2)}` : `ΔE00 ≤ ${t.max.toFixed(2)}`);
 const shortSource: Record<ColourStandard['source'], string> = { measured: 'Measured', 'client-agreed': 'Client-agreed', digital: 'Digital' };
 
 const blank: FormIn = {

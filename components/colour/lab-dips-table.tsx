@@ -5,7 +5,7 @@ import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, use
 import { useQueryClient } from '@tanstack/react-query';
 import { api, ApiError } from '@/lib/api/client';
 import type { LabDip, LabDipStatus } from '@/lib/db/lab-dips';
-import type { LabDipTolerance } from '@/lib/colour/difference';
+import { toleranceFormulaLabel as formulaLabel, toleranceLabel } from '@/lib/colour/difference';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/card';
 import { Input } from '@/components/ui/field';
@@ -19,8 +19,6 @@ const statusStyle: Record<LabDipStatus, string> = {
 };
 const statusLabels: Record<LabDipStatus, string> = { submitted: 'Awaiting decision', approved: 'Approved', rejected: 'Rejected' };
 
-const formulaLabel = (t: LabDipTolerance) => (t.formula === 'cmc' ? `CMC(${t.l}:${t.c})` : 'ΔE00');
-const toleranceLabel = (t: LabDipTolerance) => `${formulaLabel(t)} ≤ ${t.max.toFixed(2)}`;
 const signed = (n: number) => `${n >= 0 ? '+' : '−'}${Math.abs(n).toFixed(2)}`;
 
 const col = createColumnHelper<LabDip>();

@@ -58,6 +58,16 @@ export type LabDipTolerance =
   | { formula: 'cmc'; l: number; c: number; max: number }
   | { formula: 'de2000'; max: number };
 
+/** The formula of a tolerance as the screens and documents write it: "CMC(2:1)" or "ΔE00". */
+export function toleranceFormulaLabel(t: LabDipTolerance): string {
+  return t.formula === 'cmc' ? `CMC(${t.l}:${t.c})` : 'ΔE00';
+}
+
+/** A tolerance as the screens and documents write it: "CMC(2:1) ≤ 1.00". */
+export function toleranceLabel(t: LabDipTolerance): string {
+  return `${toleranceFormulaLabel(t)} ≤ ${t.max.toFixed(2)}`;
+}
+
 /** Default tolerance: CMC(2:1) ≤ 1.0 (AATCC TM173 §3.2, "the boundary … of ΔEcmc = 1.0"). */
 export const defaultLabDipTolerance: LabDipTolerance = { formula: 'cmc', l: 2, c: 1, max: 1.0 };
 

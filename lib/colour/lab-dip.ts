@@ -4,7 +4,7 @@
  * several instrument readings. The colour differences themselves come from ./difference (culori).
  */
 import { converter } from 'culori';
-import { labDipDecision, type LabDipDecision, type LabDipTolerance } from './difference';
+import { labDipDecision, toleranceFormulaLabel, type LabDipDecision, type LabDipTolerance } from './difference';
 import { toCuloriLab65, type Lab } from './lab';
 
 const toLch65 = converter('lch65');
@@ -46,10 +46,6 @@ export interface LabDipReading extends LabDipDecision {
 
 const signed = (n: number) => `${n >= 0 ? '+' : '−'}${Math.abs(n).toFixed(2)}`;
 
-function toleranceLabel(t: LabDipTolerance): string {
-  return t.formula === 'cmc' ? `CMC(${t.l}:${t.c})` : 'ΔE00';
-}
-
 /**
  * Read a lab dip against its target: `labDipDecision` (CMC standard → sample and CIEDE2000, the
  * tolerance's pass or fail) with the components in words. Lightness from ΔL*, strength from ΔC*ab,
@@ -63,7 +59,7 @@ export function readLabDip(standard: Lab, sample: Lab, tolerance?: LabDipToleran
   if (d.words.chroma !== 'same') phrases.push(`${d.words.chroma} (ΔC ${signed(d.components.dC)})`);
   if (hue) phrases.push(`${hue} (ΔH ${signed(d.components.dH)})`);
   const verdict = d.pass ? 'Within tolerance' : 'Outside tolerance';
-  const limit = `${toleranceLabel(d.tolerance)} ${d.deltaE.toFixed(2)} ${d.pass ? '≤' : '>'} ${d.tolerance.max.toFixed(2)}`;
+  const limit = `${toleranceFormulaLabel(d.tolerance)} ${d.deltaE.toFixed(2)} ${d.pass ? '≤' : '>'} ${d.tolerance.max.toFixed(2)}`;
   const words = phrases.length ? phrases.map((p) => p.replace(/ \(.*\)$/, '')).join(', ') : 'no difference to speak of';
   return { ...d, hue, phrases, summary: `${verdict}: ${limit}; ${words}.` };
 }

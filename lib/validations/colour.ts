@@ -6,7 +6,7 @@
 import { z } from 'zod';
 import { targetRoutes } from '@/lib/colour/colourway';
 import { parseLabReadings, readingLimits } from '@/lib/colour/lab-dip';
-import type { LabDipTolerance } from '@/lib/colour/difference';
+import { defaultLabDipTolerance, type LabDipTolerance } from '@/lib/colour/difference';
 
 const isBlank = (v: unknown) => v === '' || v === null || v === undefined || (typeof v === 'number' && Number.isNaN(v));
 const toNumber = (v: unknown) => (typeof v === 'string' && v.trim() !== '' ? Number(v.trim().replace(',', '.').replace(/^\u2212/, '-')) : v);
@@ -61,8 +61,8 @@ export const toleranceSchema = z.discriminatedUnion(
   { error: 'Choose CMC or ΔE00' },
 ) satisfies z.ZodType<LabDipTolerance, unknown>;
 
-/** Default: CMC(2:1) ≤ 1.0 (AATCC TM173 §3.2). */
-export const defaultTolerance: LabDipTolerance = { formula: 'cmc', l: 2, c: 1, max: 1.0 };
+/** Default: CMC(2:1) ≤ 1.0 (AATCC TM173 §3.2); the one value of lib/colour. */
+export const defaultTolerance: LabDipTolerance = defaultLabDipTolerance;
 
 const standardName = z
   .string({ error: 'Name is required' })

@@ -6,6 +6,8 @@ import {
   defaultLabDipTolerance,
   labComponents,
   labDipDecision,
+  toleranceFormulaLabel,
+  toleranceLabel,
 } from '@/lib/colour/difference';
 import type { Lab } from '@/lib/colour/lab';
 import sharma from '@/tests/fixtures/ciede2000_sharma_table1.json';
@@ -194,5 +196,13 @@ describe('labComponents', () => {
     // Standard on +a* (hue 0°), sample at hue +90° turns anticlockwise: ΔH > 0; the mirror < 0.
     expect(labComponents({ L: 50, a: 20, b: 0 }, { L: 50, a: 0, b: 20 }).dH).toBeGreaterThan(0);
     expect(labComponents({ L: 50, a: 20, b: 0 }, { L: 50, a: 0, b: -20 }).dH).toBeLessThan(0);
+  });
+});
+
+describe('tolerance labels', () => {
+  it('write the formula and the limit as the screens and documents show them', () => {
+    expect(toleranceLabel({ formula: 'cmc', l: 2, c: 1, max: 1 })).toBe('CMC(2:1) ≤ 1.00');
+    expect(toleranceLabel({ formula: 'de2000', max: 0.8 })).toBe('ΔE00 ≤ 0.80');
+    expect(toleranceFormulaLabel({ formula: 'cmc', l: 1, c: 1, max: 0.6 })).toBe('CMC(1:1)');
   });
 });
