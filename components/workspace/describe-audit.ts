@@ -176,3 +176,39 @@ function describeFit(action: string, verb: string, d: Record<string, unknown>): 
   const change = action === 'fit.correction.propose' ? `→ ${num(d.toCm)}` : `${num(d.fromCm)} → ${num(d.toCm)}`;
   return `${verb} from round ${String(d.roundNo ?? '?')}: ${point} of ${String(d.size ?? '')} ${change} cm${scope}`;
 }
+
+/** Entries that autosave writes many of in a row; the History page shows a run of them as one line. */
+const repeatedActions = new Set(['body-map.save']);
+/** Saves by one person less than this apart belong to one run. */
+export const auditRunGapMs = 30 * 60 * 1000;
+
+/** A History line: one entry, or a run of the same repeated action by the same person. */
+export interface AuditLine<E> {
+  /** The newest entry of the run (what the line describes). */
+  latest: E;
+  /** The oldest entry of the run (the same as `latest` for a single entry). */
+  earliest: E;
+  count: number;
+}
+
+/**
+ * The History page's lines from entries newest first: consecutive autosaves of the body map by the
+ * same person, each less than `auditRunGapMs` after the one before, fold into one line that says how
+ * many saves and over what time. Every entry is still kept in the audit log.
+ */
+export function auditLines<E extends { action: string; userId: string | null; createdAt: string }>(entries: readonly E[]): AuditLine<E>[] {
+  const out: AuditLine<E>[] = [];
+  for (const e of entries) {
+    const run = out[out.length - 1];
+    if (
+      run && repeatedActions.has(e.action) && run.earliest.action === e.action && run.earliest.userId === e.userId &&
+      Date.parse(run.earliest.createdAt) - Date.parse(e.createdAt) < auditRunGapMs
+    ) {
+      run.earliest = e;
+      run.count += 1;
+    } else {
+      out.push({ latest: e, earliest: e, count: 1 });
+    }
+  }
+  return out;
+}

@@ -3,6 +3,7 @@ import { db, type Db } from './knex';
 export interface AuditEntry {
   id: string;
   styleId: string | null;
+  userId: string | null;
   userName: string | null;
   action: string;
   details: Record<string, unknown>;
@@ -28,10 +29,11 @@ export async function listStyleAudit(studioId: string, styleId: string, limit = 
     .where({ 'a.studio_id': studioId, 'a.style_id': styleId })
     .orderBy('a.id', 'desc')
     .limit(limit)
-    .select('a.id', 'a.style_id', 'u.name as user_name', 'a.action', 'a.details', 'a.created_at');
-  return rows.map((r: { id: string; style_id: string | null; user_name: string | null; action: string; details: Record<string, unknown>; created_at: Date }) => ({
+    .select('a.id', 'a.style_id', 'a.user_id', 'u.name as user_name', 'a.action', 'a.details', 'a.created_at');
+  return rows.map((r: { id: string; style_id: string | null; user_id: string | null; user_name: string | null; action: string; details: Record<string, unknown>; created_at: Date }) => ({
     id: String(r.id),
     styleId: r.style_id,
+    userId: r.user_id,
     userName: r.user_name,
     action: r.action,
     details: r.details,

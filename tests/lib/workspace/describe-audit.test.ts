@@ -1,6 +1,6 @@
 // The History page's wording (components/workspace/describe-audit.ts): pure, so it runs with the lib tests.
 import { describe, expect, it } from 'vitest';
-import { describeAudit } from '@/components/workspace/describe-audit';
+import { auditLines, describeAudit } from '@/components/workspace/describe-audit';
 
 describe('describeAudit for the brief and the quote', () => {
   it('lists the brief fields saved, in plain words, never the raw action code', () => {
@@ -28,5 +28,31 @@ describe('describeAudit for the brief and the quote', () => {
     for (const action of ['brief.save', 'brief.reference.add', 'brief.reference.edit', 'brief.reference.reorder', 'brief.reference.remove', 'quote.save']) {
       expect(describeAudit(action, {})).not.toContain(action);
     }
+  });
+});
+
+describe('auditLines', () => {
+  const entry = (id: string, action: string, userId: string, createdAt: string) => ({ id, action, userId, createdAt });
+
+  it('folds a run of body-map autosaves by one person into one line, newest first', () => {
+    const lines = auditLines([
+      entry('6', 'body-map.save', 'u1', '2026-12-02T10:31:00.000Z'),
+      entry('5', 'body-map.save', 'u1', '2026-12-02T10:20:00.000Z'),
+      entry('4', 'body-map.save', 'u1', '2026-12-02T10:02:00.000Z'),
+      entry('3', 'style.update', 'u1', '2026-12-02T10:01:00.000Z'),
+      entry('2', 'body-map.save', 'u1', '2026-12-02T09:00:00.000Z'),
+    ]);
+    expect(lines.map((l) => [l.latest.id, l.earliest.id, l.count])).toEqual([['6', '4', 3], ['3', '3', 1], ['2', '2', 1]]);
+  });
+
+  it('keeps apart saves by different people, saves more than 30 minutes apart, and other actions', () => {
+    const lines = auditLines([
+      entry('5', 'body-map.save', 'u2', '2026-12-02T10:31:00.000Z'),
+      entry('4', 'body-map.save', 'u1', '2026-12-02T10:30:00.000Z'),
+      entry('3', 'body-map.save', 'u1', '2026-12-02T09:59:00.000Z'),
+      entry('2', 'lab-dip.submit', 'u3', '2026-12-02T09:58:00.000Z'),
+      entry('1', 'lab-dip.submit', 'u3', '2026-12-02T09:57:00.000Z'),
+    ]);
+    expect(lines.map((l) => l.count)).toEqual([1, 1, 1, 1, 1]);
   });
 });
