@@ -6,6 +6,7 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import knexFactory, { type Knex } from 'knex';
 import { as, baseUrl, newStyleBody, styleByCode, type Client } from './helpers';
+import { readPdf } from '../support/pdf-reader';
 
 const tinyPng = Buffer.from(
   'iVBORw0KGgoAAAANSUhEUgAAAAIAAAACCAIAAAD91JpzAAAAFklEQVR4nGP8z8DAwMDAxMDAwMDAAAANHQEDasKb6QAAAABJRU5ErkJggg==',
@@ -184,7 +185,16 @@ describe('brief and quote routes', () => {
     expect((await designer.put(`/api/styles/${styleId}/quote`, { version: q.version, inputs: q.inputs })).status).toBe(409);
     const pdf = await fetch(baseUrl() + `/api/styles/${styleId}/quote/export?format=pdf`, { headers: { cookie: designer.cookie } });
     expect(pdf.status).toBe(200);
-    expect(Buffer.from(await pdf.arrayBuffer()).subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    const pdfBytes = new Uint8Array(await pdf.arrayBuffer());
+    expect(Buffer.from(pdfBytes).subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    // The PDF says how the totals were computed, as the page and the CSV do.
+    const flat = (t: string) => t.replace(/\s+/g, ' ');
+    const pdfText = flat((await readPdf(pdfBytes)).map((p) => p.text).join(' '));
+    const sm = saved.json.quote.quote.sizes.find((s: { size: string }) => s.size === 'M');
+    expect(sm.how.margin).toMatch(/^target 47\.35 − cost /);
+    expect(pdfText).toContain(flat(sm.how.margin));
+    expect(pdfText).toContain(flat(sm.how.perGarment));
+    expect(pdfText).toContain(flat(saved.json.quote.quote.order.how.margin));
     const csv = await designer.get(`/api/styles/${styleId}/quote/export?format=csv`);
     expect(csv.text.split('\r\n')[0]).toMatch(/^style,size,line/);
     expect(csv.text).toContain('HF27-101,M,Total cost');
