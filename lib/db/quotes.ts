@@ -77,6 +77,10 @@ async function assertStudioMills(studioId: string, ids: readonly string[], field
  */
 export async function setStudioCostRates(user: SessionUser, input: CostRatesInput, q: Knex = db(), millRates: Readonly<Record<string, number | null>> = {}): Promise<StudioCostRates> {
   if (!can(user.role, 'quote:edit')) throw forbidden();
+  const given = Object.entries(input).filter(([, v]) => v !== undefined).map(([k]) => k);
+  const fields = [...given, ...(Object.keys(millRates).length ? ['millRates'] : [])];
+  // Nothing named: nothing to write, and no history entry for it.
+  if (fields.length === 0) return studioCostRates(user, q);
   await q.transaction(async (trx) => {
     await assertStudioMills(user.studioId, Object.keys(millRates), (id) => `mills.${id}`, trx);
     const row = (await trx('studios').where({ id: user.studioId }).forUpdate().first('settings')) as { settings: { costing?: RatesSet } | null } | undefined;
@@ -91,8 +95,6 @@ export async function setStudioCostRates(user: SessionUser, input: CostRatesInpu
           : trx.raw("jsonb_set(jsonb_set(coalesce(settings, '{}'::jsonb), '{costing}', coalesce(settings -> 'costing', '{}'::jsonb), true), '{costing,machineMinuteRate}', ?::jsonb, true)", [JSON.stringify(rate)]),
       });
     }
-    const given = Object.entries(input).filter(([, v]) => v !== undefined).map(([k]) => k);
-    const fields = [...given, ...(Object.keys(millRates).length ? ['millRates'] : [])];
     await trx('audit_log').insert({ studio_id: user.studioId, user_id: user.id, action: 'studio.costing', details: JSON.stringify({ fields }) });
   });
   return studioCostRates(user, q);

@@ -272,6 +272,13 @@ describe('brief and quote routes', () => {
     expect(read.rates.efficiency).toBe(before.rates.efficiency);
     expect(read.rates.trimUnitCost).toEqual(before.rates.trimUnitCost);
     expect(read.mills).toEqual(before.mills);
+    // An empty PUT changes nothing and leaves no history entry.
+    const entries = async () => Number((await knex('audit_log').where({ action: 'studio.costing' }).count<{ n: string }[]>({ n: '*' }))[0]!.n);
+    const logged = await entries();
+    const none = await designer.put('/api/settings/costing', {});
+    expect(none.status).toBe(200);
+    expect(none.json.costing).toEqual(read);
+    expect(await entries()).toBe(logged);
     // One key of a group changed: the rest of the group stays.
     const cut = await designer.put('/api/settings/costing', { rates: { makingUp: { cutting: 0.44 } } });
     expect(cut.json.costing.rates.makingUp).toMatchObject({ cutting: 0.44, linking: 1.9 });
