@@ -56,6 +56,33 @@ export const defaultCostRates: CostRates = {
 /** Which rates a studio has set; the others are the example defaults. */
 export type RatesSet = { [K in keyof CostRates]?: CostRates[K] extends Record<string, number> ? Partial<CostRates[K]> : CostRates[K] };
 
+/** A change to the studio rates: an absent key keeps the stored value, null puts it back to the example default. */
+export type RatesChange = {
+  [K in keyof CostRates]?: CostRates[K] extends Record<string, number> ? { [P in keyof CostRates[K]]?: number | null } : CostRates[K] | null;
+};
+
+/**
+ * The stored rates with a change written onto them: given keys replace the stored ones (in making-up
+ * and trims, key by key), null removes a key so it takes the example default again, absent keys stay.
+ */
+export function applyRatesChange(stored: RatesSet | null | undefined, change: RatesChange): RatesSet {
+  const merge = (into: Record<string, unknown>, from: Record<string, unknown>): Record<string, unknown> => {
+    const out = { ...into };
+    for (const [k, v] of Object.entries(from)) {
+      if (v === undefined) continue;
+      if (v === null) delete out[k];
+      else if (typeof v === 'object') {
+        const inner = out[k];
+        const merged = merge(inner && typeof inner === 'object' ? (inner as Record<string, unknown>) : {}, v as Record<string, unknown>);
+        if (Object.keys(merged).length) out[k] = merged;
+        else delete out[k];
+      } else out[k] = v;
+    }
+    return out;
+  };
+  return merge({ ...(stored ?? {}) }, change) as RatesSet;
+}
+
 /** The studio's rates over the defaults, with the keys still at their example value. */
 export function resolveRates(set: RatesSet | null | undefined): { rates: CostRates; defaults: string[] } {
   const s = set ?? {};

@@ -7,7 +7,7 @@ import { findStyle, type Style } from './styles';
 import { listTrims } from './trims';
 import { briefAnswersForStudio } from './briefs';
 import { coursesPerGarment, loadStylePlan, sizeScales } from './plan-figures';
-import { computeQuote, exampleValueNote, resolveRates, trimCostKinds, type CostRates, type Quote, type QuoteMachine, type TrimCostKind } from '@/lib/cost';
+import { applyRatesChange, computeQuote, exampleValueNote, resolveRates, trimCostKinds, type CostRates, type RatesSet, type Quote, type QuoteMachine, type TrimCostKind } from '@/lib/cost';
 import { quoteInputsSchema, type CostRatesInput, type QuoteInputs } from '@/lib/validations/quote';
 import { briefFieldLabels } from '@/lib/validations/brief';
 
@@ -71,17 +71,22 @@ async function assertStudioMills(studioId: string, ids: readonly string[], field
 }
 
 /**
- * Writes studios.settings.costing (null values fall back to the example defaults) and the given
- * mills' machine-minute rates (organisations.settings.costing; null clears one).
+ * Writes the given rates onto studios.settings.costing (absent keys keep their stored value, null puts
+ * one back to its example default) and the given mills' machine-minute rates (organisations.settings.costing;
+ * null clears one, absent mills keep theirs).
  */
 export async function setStudioCostRates(user: SessionUser, input: CostRatesInput, q: Knex = db(), millRates: Readonly<Record<string, number | null>> = {}): Promise<StudioCostRates> {
   if (!can(user.role, 'quote:edit')) throw forbidden();
-  const clean = (o: Record<string, unknown>): Record<string, unknown> =>
-    Object.fromEntries(Object.entries(o).filter(([, v]) => v !== null).map(([k, v]) => [k, v && typeof v === 'object' ? clean(v as Record<string, unknown>) : v]));
+  const given = Object.entries(input).filter(([, v]) => v !== undefined).map(([k]) => k);
+  const fields = [...given, ...(Object.keys(millRates).length ? ['millRates'] : [])];
+  // Nothing named: nothing to write, and no history entry for it.
+  if (fields.length === 0) return studioCostRates(user, q);
   await q.transaction(async (trx) => {
     await assertStudioMills(user.studioId, Object.keys(millRates), (id) => `mills.${id}`, trx);
+    const row = (await trx('studios').where({ id: user.studioId }).forUpdate().first('settings')) as { settings: { costing?: RatesSet } | null } | undefined;
+    const costing = applyRatesChange(row?.settings?.costing, input);
     await trx('studios').where({ id: user.studioId }).update({
-      settings: trx.raw("jsonb_set(coalesce(settings, '{}'::jsonb), '{costing}', ?::jsonb, true)", [JSON.stringify(clean(input))]),
+      settings: trx.raw("jsonb_set(coalesce(settings, '{}'::jsonb), '{costing}', ?::jsonb, true)", [JSON.stringify(costing)]),
     });
     for (const [id, rate] of Object.entries(millRates)) {
       await trx('organisations').where({ id, studio_id: user.studioId }).update({
@@ -90,7 +95,6 @@ export async function setStudioCostRates(user: SessionUser, input: CostRatesInpu
           : trx.raw("jsonb_set(jsonb_set(coalesce(settings, '{}'::jsonb), '{costing}', coalesce(settings -> 'costing', '{}'::jsonb), true), '{costing,machineMinuteRate}', ?::jsonb, true)", [JSON.stringify(rate)]),
       });
     }
-    const fields = [...Object.keys(clean(input)), ...(Object.keys(millRates).length ? ['millRates'] : [])];
     await trx('audit_log').insert({ studio_id: user.studioId, user_id: user.id, action: 'studio.costing', details: JSON.stringify({ fields }) });
   });
   return studioCostRates(user, q);

@@ -1,6 +1,7 @@
 /**
  * The quote as a PDF (jsPDF with the embedded fonts of lib/mill/pdf): per size, every cost line
- * with how it was computed, the total, the target price and margin; then the order by size.
+ * with how it was computed, and the totals (cost, margin, order) with how they were computed; the
+ * order by size first.
  */
 import { createPdf, font, ink, pageNumbers, pdfBytes, wrappedText, type PdfPage } from '@/lib/mill/pdf';
 import type { PaperSize } from '@/lib/mill/pack-data';
@@ -61,26 +62,48 @@ export function quotePdf(q: StyleQuote, paper: PaperSize = 'a4'): Uint8Array {
   font(doc, 'bold', 8);
   ['All', String(q.quote.order.garments), '', q.quote.targetPricePerGarment === null ? '' : `target ${money(q.quote.targetPricePerGarment, c)}`, money(q.quote.order.cost, c), money(q.quote.order.margin, c)]
     .forEach((t, i) => doc.text(t, cols[i]!, y));
-  y += 8;
-  // Each size's lines with how they were computed.
+  y += 6;
+  /** One figure with how it was computed: label and amount on a line, the how wrapped below, kept on one page. */
+  const howRow = (label: string, amount: number | null, how: string, total: boolean) => {
+    font(doc, 'regular', 7.5, ink.soft);
+    const howLines = doc.splitTextToSize(how, w - 2 * m - 30) as string[];
+    room(3.8 + howLines.length * 3.4 + 1, 'Quote (continued)');
+    font(doc, total ? 'bold' : 'regular', 8.5);
+    doc.text(label, m, y);
+    font(doc, 'mono', 8.5);
+    doc.text(money(amount, c), w - m, y, { align: 'right' });
+    y += 3.8;
+    font(doc, 'regular', 7.5, ink.soft);
+    y += wrappedText(doc, how, m + 3, y, w - 2 * m - 30, 3.4) + 1;
+  };
+  const totals = (rows: { label: string; amount: number | null; how: string | null }[]) => {
+    for (const t of rows) if (t.how !== null) howRow(t.label, t.amount, t.how, true);
+  };
+  // How the order totals were computed.
+  room(12, 'Quote (continued)');
+  font(doc, 'bold', 8.5);
+  doc.text('How the order totals were computed', m, y);
+  y += 4.5;
+  totals([
+    { label: 'Order cost', amount: q.quote.order.cost, how: q.quote.order.how.cost },
+    { label: 'Order at the target price', amount: q.quote.order.revenue, how: q.quote.order.how.revenue },
+    { label: 'Order margin', amount: q.quote.order.margin, how: q.quote.order.how.margin },
+  ]);
+  y += 4;
+  // Each size's lines and totals with how they were computed.
   for (const s of q.quote.sizes) {
     room(20, 'Quote (continued)');
     font(doc, 'bold', 10);
     doc.text(`Size ${s.size}: ${money(s.perGarment, c)} per garment`, m, y);
     y += 5;
-    for (const l of s.lines) {
-      room(10, 'Quote (continued)');
-      font(doc, 'regular', 8.5);
-      doc.text(l.label, m, y);
-      font(doc, 'mono', 8.5);
-      doc.text(money(l.amount, c), w - m, y, { align: 'right' });
-      y += 3.8;
-      font(doc, 'regular', 7.5, ink.soft);
-      y += wrappedText(doc, l.how, m + 3, y, w - 2 * m - 30, 3.4) + 1;
-    }
-    font(doc, 'bold', 8.5);
-    doc.text(`Total ${money(s.perGarment, c)} · margin ${money(s.marginPerGarment, c)}${s.marginShare === null ? '' : ` (${(s.marginShare * 100).toFixed(1)} % of the target price)`}`, m, y);
-    y += 7;
+    for (const l of s.lines) howRow(l.label, l.amount, l.how, false);
+    totals([
+      { label: 'Cost per garment', amount: s.perGarment, how: s.how.perGarment },
+      { label: 'Margin per garment', amount: s.marginPerGarment, how: s.how.margin },
+      { label: `Order cost, size ${s.size}`, amount: s.orderCost, how: s.how.orderCost },
+      { label: `Order margin, size ${s.size}`, amount: s.orderMargin, how: s.how.orderMargin },
+    ]);
+    y += 5;
   }
   pageNumbers(p);
   return pdfBytes(p);

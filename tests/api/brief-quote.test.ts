@@ -6,6 +6,7 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import knexFactory, { type Knex } from 'knex';
 import { as, baseUrl, newStyleBody, styleByCode, type Client } from './helpers';
+import { readPdf } from '../support/pdf-reader';
 
 const tinyPng = Buffer.from(
   'iVBORw0KGgoAAAANSUhEUgAAAAIAAAACCAIAAAD91JpzAAAAFklEQVR4nGP8z8DAwMDAxMDAwMDAAAANHQEDasKb6QAAAABJRU5ErkJggg==',
@@ -184,7 +185,16 @@ describe('brief and quote routes', () => {
     expect((await designer.put(`/api/styles/${styleId}/quote`, { version: q.version, inputs: q.inputs })).status).toBe(409);
     const pdf = await fetch(baseUrl() + `/api/styles/${styleId}/quote/export?format=pdf`, { headers: { cookie: designer.cookie } });
     expect(pdf.status).toBe(200);
-    expect(Buffer.from(await pdf.arrayBuffer()).subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    const pdfBytes = new Uint8Array(await pdf.arrayBuffer());
+    expect(Buffer.from(pdfBytes).subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    // The PDF says how the totals were computed, as the page and the CSV do.
+    const flat = (t: string) => t.replace(/\s+/g, ' ');
+    const pdfText = flat((await readPdf(pdfBytes)).map((p) => p.text).join(' '));
+    const sm = saved.json.quote.quote.sizes.find((s: { size: string }) => s.size === 'M');
+    expect(sm.how.margin).toMatch(/^target 47\.35 − cost /);
+    expect(pdfText).toContain(flat(sm.how.margin));
+    expect(pdfText).toContain(flat(sm.how.perGarment));
+    expect(pdfText).toContain(flat(saved.json.quote.quote.order.how.margin));
     const csv = await designer.get(`/api/styles/${styleId}/quote/export?format=csv`);
     expect(csv.text.split('\r\n')[0]).toMatch(/^style,size,line/);
     expect(csv.text).toContain('HF27-101,M,Total cost');
@@ -216,14 +226,9 @@ describe('brief and quote routes', () => {
     const other = orgs.filter((o) => o.kind === 'mill')[1]!;
     const clientOrg = orgs.find((o) => o.kind === 'client')!;
     const studio = (await designer.get('/api/settings/costing')).json.costing;
-    // The studio rates as set (a PUT writes them all), so only the mill rates change here.
-    const rates: Record<string, unknown> = { makingUp: {}, trimUnitCost: {} };
-    for (const [k, v] of Object.entries(studio.rates as Record<string, unknown>)) {
-      if (v && typeof v === 'object') {
-        for (const [kk, vv] of Object.entries(v)) if (!studio.defaults.includes(`${k}.${kk}`)) (rates[k] as Record<string, unknown>)[kk] = vv;
-      } else if (!studio.defaults.includes(k)) rates[k] = v;
-    }
-    const set = await designer.put('/api/settings/costing', { rates, mills: { [mill.id]: 0.61, [other.id]: null } });
+    // No rates in the body: the studio rates stay as they are, only the mill rates change here.
+    const rates = {};
+    const set = await designer.put('/api/settings/costing', { mills: { [mill.id]: 0.61, [other.id]: null } });
     expect(set.status).toBe(200);
     expect(set.json.costing.mills.find((m: { id: string }) => m.id === mill.id).minuteRate).toBe(0.61);
     expect((await designer.put('/api/settings/costing', { rates, mills: { [clientOrg.id]: 0.5 } })).status).toBe(400);
@@ -249,6 +254,51 @@ describe('brief and quote routes', () => {
     // Back to the studio rate for the tests below.
     await designer.put(`/api/styles/${styleId}/quote`, { version: noRate.json.quote.version, inputs: { ...noRate.json.quote.inputs, millId: null } });
     await designer.put('/api/settings/costing', { rates, mills: { [mill.id]: null } });
+  });
+
+  it('writes only the studio rates a PUT names: absent ones keep their saved value, null puts one back to its example', async () => {
+    const before = (await designer.get('/api/settings/costing')).json.costing;
+    const two = await designer.put('/api/settings/costing', { rates: { machineMinuteRate: 0.47, makingUp: { linking: 1.9 } } });
+    expect(two.status).toBe(200);
+    expect(two.json.costing.rates.machineMinuteRate).toBe(0.47);
+    expect(two.json.costing.rates.makingUp.linking).toBe(1.9);
+    // Only one of the two sent again: the other is still the saved one, and so is everything else.
+    const one = await designer.put('/api/settings/costing', { rates: { machineMinuteRate: 0.52 } });
+    expect(one.status).toBe(200);
+    const read = (await designer.get('/api/settings/costing')).json.costing;
+    expect(read.rates.machineMinuteRate).toBe(0.52);
+    expect(read.rates.makingUp.linking).toBe(1.9);
+    expect(read.defaults).not.toContain('makingUp.linking');
+    expect(read.rates.efficiency).toBe(before.rates.efficiency);
+    expect(read.rates.trimUnitCost).toEqual(before.rates.trimUnitCost);
+    expect(read.mills).toEqual(before.mills);
+    // An empty PUT changes nothing and leaves no history entry.
+    const entries = async () => Number((await knex('audit_log').where({ action: 'studio.costing' }).count<{ n: string }[]>({ n: '*' }))[0]!.n);
+    const logged = await entries();
+    const none = await designer.put('/api/settings/costing', {});
+    expect(none.status).toBe(200);
+    expect(none.json.costing).toEqual(read);
+    expect(await entries()).toBe(logged);
+    // One key of a group changed: the rest of the group stays.
+    const cut = await designer.put('/api/settings/costing', { rates: { makingUp: { cutting: 0.44 } } });
+    expect(cut.json.costing.rates.makingUp).toMatchObject({ cutting: 0.44, linking: 1.9 });
+    // Null: back to the example value, listed as such.
+    const reset = await designer.put('/api/settings/costing', { rates: { makingUp: { linking: null } } });
+    expect(reset.json.costing.defaults).toContain('makingUp.linking');
+    expect(reset.json.costing.rates.makingUp.cutting).toBe(0.44);
+    expect(reset.json.costing.rates.machineMinuteRate).toBe(0.52);
+    // A bad value among good ones changes nothing.
+    const bad = await designer.put('/api/settings/costing', { rates: { machineMinuteRate: 0.6, efficiency: 4 } });
+    expect(bad.status).toBe(400);
+    expect(bad.json.fieldErrors['rates.efficiency']).toBeDefined();
+    expect((await designer.get('/api/settings/costing')).json.costing.rates.machineMinuteRate).toBe(0.52);
+    // Back to the rates as they were, the way the Studio rates form sends them: every key, null for an example value.
+    const value = (k: string, v: unknown) => (before.defaults.includes(k) ? null : v);
+    const group = (g: string) => Object.fromEntries(Object.entries(before.rates[g] as Record<string, number>).map(([k, v]) => [k, value(`${g}.${k}`, v)]));
+    const all = Object.fromEntries(Object.entries(before.rates as Record<string, unknown>).filter(([, v]) => typeof v !== 'object').map(([k, v]) => [k, value(k, v)]));
+    const restored = await designer.put('/api/settings/costing', { rates: { ...all, makingUp: group('makingUp'), trimUnitCost: group('trimUnitCost') } });
+    expect(restored.status).toBe(200);
+    expect(restored.json.costing).toEqual(before);
   });
 
   it('the mill and the client get 403 on every cost route', async () => {

@@ -29,6 +29,8 @@ export interface ReadPage {
   widthMm: number;
   heightMm: number;
   text: string;
+  /** Each piece of text with its baseline, left and right edges, in mm from the page's top-left corner. */
+  textItems: { str: string; xMm: number; rightMm: number; yMm: number }[];
   rects: DrawnRect[];
   /** Form XObjects painted on the page (the true-size tiles are form objects). */
   forms: number;
@@ -41,7 +43,16 @@ export async function readPdf(bytes: Uint8Array): Promise<ReadPage[]> {
     const page = await pdf.getPage(n);
     const [x0, y0, x1, y1] = page.view as [number, number, number, number];
     const heightPt = y1 - y0;
-    const text = (await page.getTextContent()).items.map((i) => ('str' in i ? i.str : '')).join(' ');
+    const items = (await page.getTextContent()).items;
+    const text = items.map((i) => ('str' in i ? i.str : '')).join(' ');
+    const textItems = items.flatMap((i) => ('str' in i && i.str.trim() !== ''
+      ? [{
+        str: i.str,
+        xMm: ((i.transform[4] as number) - x0) * PT_TO_MM,
+        rightMm: ((i.transform[4] as number) + i.width - x0) * PT_TO_MM,
+        yMm: (heightPt - (i.transform[5] as number) + y0) * PT_TO_MM,
+      }]
+      : []));
     const ops = await page.getOperatorList();
     let ctm: M = [1, 0, 0, 1, 0, 0];
     const stack: M[] = [];
@@ -80,7 +91,7 @@ export async function readPdf(bytes: Uint8Array): Promise<ReadPage[]> {
         });
       }
     }
-    pages.push({ widthMm: (x1 - x0) * PT_TO_MM, heightMm: heightPt * PT_TO_MM, text, rects, forms });
+    pages.push({ widthMm: (x1 - x0) * PT_TO_MM, heightMm: heightPt * PT_TO_MM, text, textItems, rects, forms });
   }
   return pages;
 }

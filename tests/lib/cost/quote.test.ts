@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { computeQuote, defaultCostRates, machineCost, marginTo, quoteCsv, resolveRates, yarnCost, type QuoteInput } from '@/lib/cost';
+import { applyRatesChange, computeQuote, defaultCostRates, machineCost, marginTo, quoteCsv, resolveRates, yarnCost, type QuoteInput } from '@/lib/cost';
 
 describe('yarnCost', () => {
   it('adds the waste allowance to the knitted grams, then grams × price per kg ÷ 1000 (common practice; consumption per references.md §7(f))', () => {
@@ -129,5 +129,26 @@ describe('resolveRates', () => {
     expect(defaults).toContain('efficiency');
     expect(defaults).toContain('makingUp.linking');
     expect(defaults).not.toContain('machineMinuteRate');
+  });
+});
+
+describe('applyRatesChange (common practice, no published source)', () => {
+  const stored = { machineMinuteRate: 0.5, efficiency: 0.8, makingUp: { cutting: 0.4, dyeing: 1.1 } };
+  it('writes the given keys and keeps the absent ones, key by key in making-up', () => {
+    const next = applyRatesChange(stored, { efficiency: 0.9, makingUp: { linking: 1.5 } });
+    expect(next).toEqual({ machineMinuteRate: 0.5, efficiency: 0.9, makingUp: { cutting: 0.4, dyeing: 1.1, linking: 1.5 } });
+    expect(resolveRates(next).defaults).not.toContain('machineMinuteRate');
+  });
+  it('null puts a key back to its example default; an emptied group goes away', () => {
+    const next = applyRatesChange(stored, { machineMinuteRate: null, makingUp: { cutting: null, dyeing: null } });
+    expect(next).toEqual({ efficiency: 0.8 });
+    const { rates, defaults } = resolveRates(next);
+    expect(rates.machineMinuteRate).toBe(defaultCostRates.machineMinuteRate);
+    expect(defaults).toEqual(expect.arrayContaining(['machineMinuteRate', 'makingUp.cutting', 'makingUp.dyeing']));
+  });
+  it('starts from nothing stored and leaves the stored object as it was', () => {
+    expect(applyRatesChange(null, { currency: 'CHF' })).toEqual({ currency: 'CHF' });
+    applyRatesChange(stored, { makingUp: { cutting: 2 } });
+    expect(stored.makingUp.cutting).toBe(0.4);
   });
 });

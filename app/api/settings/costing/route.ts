@@ -10,6 +10,7 @@ export const GET = route(async () => {
   return NextResponse.json({ costing: await studioCostRates(user) });
 });
 
+/** Writes the rates and mill rates the body names; absent ones keep theirs, null puts one back to its example value. */
 export const PUT = route(async (req) => {
   const user = await authorize('quote:edit');
   const { rates, mills } = await parseBody(req, costRatesPutSchema);
