@@ -126,7 +126,12 @@ function tickStep(pxPerUnit: number, minPx: number): number {
   return steps.find((s) => s * pxPerUnit >= minPx) ?? 5000;
 }
 
-function Rulers({ panel, layout, unit }: { panel: Panel; layout: PanelLayout; unit: RulerUnit }) {
+/**
+ * A panel's rulers and name. `roomLeftPx` is the free space to its left (the gap after the panel
+ * before it, or the margin for the first): the course numbers are written only where they fit
+ * there, so they never sit on the neighbouring panel; the ticks are always drawn.
+ */
+function Rulers({ panel, layout, unit, roomLeftPx }: { panel: Panel; layout: PanelLayout; unit: RulerUnit; roomLeftPx: number }) {
   const out: React.ReactNode[] = [];
   const { origin, pxPerNeedle, pxPerCourse } = layout;
   const perUnitX = unit === 'stitches' ? 1 : unit === 'cm' ? layout.density.walesPerCm : layout.density.walesPerCm * 2.54;
@@ -137,15 +142,19 @@ function Rulers({ panel, layout, unit }: { panel: Panel; layout: PanelLayout; un
   const maxY = panel.heightCourses / perUnitY;
   const top = origin.y - 6;
   const left = origin.x - 6;
+  const rightPx = origin.x + panel.widthNeedles * pxPerNeedle;
   for (let v = 0; v <= maxX + 1e-9; v += stepX) {
     const x = origin.x + v * perUnitX * pxPerNeedle;
     out.push(<Line key={`x${v}`} points={[x, top - 5, x, top]} stroke="#7b8288" strokeWidth={1} listening={false} />);
-    out.push(<Text key={`xt${v}`} x={x + 2} y={top - 15} text={String(v)} fontSize={10} fontFamily="var(--font-figures), monospace" fill="#7b8288" listening={false} />);
+    // A number close to the panel's right edge is written to the left of its tick, not over the gap.
+    const flip = v > 0 && x + 30 > rightPx;
+    out.push(<Text key={`xt${v}`} x={flip ? x - 38 : x + 2} width={flip ? 36 : undefined} align={flip ? 'right' : 'left'} y={top - 15} text={String(v)} fontSize={10} fontFamily="var(--font-figures), monospace" fill="#7b8288" listening={false} />);
   }
+  const courseNumbers = roomLeftPx >= 50;
   for (let v = 0; v <= maxY + 1e-9; v += stepY) {
     const y = origin.y + v * perUnitY * pxPerCourse;
     out.push(<Line key={`y${v}`} points={[left - 5, y, left, y]} stroke="#7b8288" strokeWidth={1} listening={false} />);
-    out.push(<Text key={`yt${v}`} x={left - 44} y={y - 5} width={36} align="right" text={String(v)} fontSize={10} fontFamily="var(--font-figures), monospace" fill="#7b8288" listening={false} />);
+    if (courseNumbers) out.push(<Text key={`yt${v}`} x={left - 44} y={y - 5} width={36} align="right" text={String(v)} fontSize={10} fontFamily="var(--font-figures), monospace" fill="#7b8288" listening={false} />);
   }
   // The panel's size in the ruler's unit; cut short with an ellipsis rather than run into the next panel.
   const size = unit === 'stitches'
@@ -287,7 +296,11 @@ export default function BodyMapCanvas({ editor, state, textures, yarns, fill, ru
         <Layer listening={false}>
           {state.doc.panels.map((panel) => {
             const layout = layouts.find((l) => l.panelId === panel.id);
-            return layout ? <Rulers key={panel.id} panel={panel} layout={layout} unit={rulerUnit} /> : null;
+            if (!layout) return null;
+            const i = layouts.indexOf(layout);
+            const before = i > 0 ? layouts[i - 1] : undefined;
+            const roomLeftPx = before ? layout.origin.x - (before.origin.x + before.widthPx) : layout.origin.x;
+            return <Rulers key={panel.id} panel={panel} layout={layout} unit={rulerUnit} roomLeftPx={roomLeftPx} />;
           })}
           <Overlay state={state} layouts={layouts} highlight={highlight} />
         </Layer>
