@@ -149,6 +149,20 @@ describe('rasterizePanel: basics', () => {
   });
 });
 
+/** Whether (x, y) lies within `eps` of an edge of the polygon. */
+function nearEdge(poly: readonly { x: number; y: number }[], x: number, y: number, eps: number): boolean {
+  for (let k = 0; k < poly.length; k++) {
+    const a = poly[k]!;
+    const b = poly[(k + 1) % poly.length]!;
+    const dx = b.x - a.x;
+    const dy = b.y - a.y;
+    const len2 = dx * dx + dy * dy;
+    const t = len2 === 0 ? 0 : Math.max(0, Math.min(1, ((x - a.x) * dx + (y - a.y) * dy) / len2));
+    if (Math.hypot(x - (a.x + t * dx), y - (a.y + t * dy)) <= eps) return true;
+  }
+  return false;
+}
+
 describe('rasterizePanel: properties (fast-check)', () => {
   it('matches an independent point-in-polygon test at every stitch centre', () => {
     fc.assert(
@@ -156,15 +170,20 @@ describe('rasterizePanel: properties (fast-check)', () => {
         const r = rasterizePanel(panel(40, 40, { knittedArea: poly, cutOutline: poly }));
         let count = 0;
         let mismatches = 0;
+        let ties = 0;
         for (let j = 0; j < 40; j++) {
           for (let i = 0; i < 40; i++) {
+            // A stitch centre on an edge (within float noise) is a tie that either rule may break
+            // either way: it is left out of the comparison, and allowed for in the total.
+            if (nearEdge(poly, i + 0.5, j + 0.5, 1e-9)) { ties++; continue; }
             const inside = pointInPolygon(poly, i + 0.5, j + 0.5);
             if (inside) count++;
             if (((r.cells[j * 40 + i] as number) === 1) !== inside) mismatches++;
           }
         }
         expect(mismatches).toBe(0);
-        expect(r.knitted).toBe(count);
+        expect(r.knitted).toBeGreaterThanOrEqual(count);
+        expect(r.knitted).toBeLessThanOrEqual(count + ties);
       }),
     );
   });
