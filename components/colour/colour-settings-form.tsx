@@ -9,7 +9,6 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Field, Input, Select } from '@/components/ui/field';
 
-
 type Formula = 'default' | LabDipTolerance['formula'];
 interface FormValues { formula: Formula; l: string; c: string; max: string; lowContrast: string }
 

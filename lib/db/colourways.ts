@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { db, type Db } from './knex';
+import { studioSettings } from './studio-settings';
 import type { SessionUser } from './users';
 import { findStyle } from './styles';
 import { listStyleTextures } from './textures';
@@ -89,8 +90,7 @@ const fieldError = (fieldErrors: Record<string, string[]>) => new HttpError(400,
 
 /** The studio's colour settings (studios.settings), with the product defaults where none is set. */
 export async function studioColourSettings(studioId: string, q: Db = db()): Promise<StudioColourSettings> {
-  const row = (await q('studios').where({ id: studioId }).first('settings')) as { settings: Record<string, unknown> } | undefined;
-  const s = row?.settings ?? {};
+  const s = await studioSettings(studioId, q);
   const t = s.labDipTolerance as { formula?: string; l?: unknown; c?: unknown; max?: unknown } | undefined;
   let tolerance: LabDipTolerance = defaultLabDipTolerance;
   if (t && typeof t.max === 'number' && t.max > 0) {

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { db, type Db } from './knex';
+import { studioSettings } from './studio-settings';
 import type { SessionUser } from './users';
 import { findStyle, type Style } from './styles';
 import { storeFile, withStoredFiles } from './files';
@@ -137,8 +138,7 @@ export async function fitTextures(user: SessionUser, styleId: string, q: Db = db
 
 /** The studio's seamless equivalence factor (studios.settings.fit.seamlessFactor), or the common-practice default. */
 export async function studioSeamlessFactor(studioId: string, q: Db = db()): Promise<StudioSeamlessFactor> {
-  const row = (await q('studios').where({ id: studioId }).first('settings')) as { settings: { fit?: { seamlessFactor?: unknown } } } | undefined;
-  const f = row?.settings?.fit?.seamlessFactor;
+  const f = ((await studioSettings(studioId, q)).fit as { seamlessFactor?: unknown } | undefined)?.seamlessFactor;
   return typeof f === 'number' && f > 0 ? { factor: f, isDefault: false } : { factor: defaultSeamlessFactor, isDefault: true };
 }
 
@@ -452,8 +452,8 @@ export async function saveSizeSpec(user: SessionUser, styleId: string, input: Si
 export async function setStudioSeamlessFactor(user: SessionUser, styleId: string, input: SeamlessFactorPut, q: Knex = db()): Promise<StudioSeamlessFactor> {
   return q.transaction(async (trx) => {
     const style = await visibleStyle(user, styleId, trx);
-    const row = (await trx('studios').where({ id: user.studioId }).forUpdate().first('settings')) as { settings: { fit?: { seamlessFactor?: unknown } } };
-    const current = typeof row.settings?.fit?.seamlessFactor === 'number' ? (row.settings.fit.seamlessFactor as number) : null;
+    const stored = ((await studioSettings(user.studioId, trx, { forUpdate: true })).fit as { seamlessFactor?: unknown } | undefined)?.seamlessFactor;
+    const current = typeof stored === 'number' ? stored : null;
     if (current !== input.expected) {
       throw conflict('Someone changed the studio factor after you opened this page. Reload to see it.', { currentFactor: current });
     }

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { db, type Db } from './knex';
+import { studioSettings, writeStudioSetting } from './studio-settings';
 import type { SessionUser } from './users';
 import { conflict, forbidden, HttpError, notFound } from '@/lib/api/errors';
 import { can, canSeeCosts } from '@/lib/auth/roles';
@@ -50,8 +51,7 @@ function assertCosts(user: SessionUser) {
 
 export async function studioCostRates(user: SessionUser, q: Db = db()): Promise<StudioCostRates> {
   assertCosts(user);
-  const row = (await q('studios').where({ id: user.studioId }).first('settings')) as { settings: { costing?: Parameters<typeof resolveRates>[0] } } | undefined;
-  const { rates, defaults } = resolveRates(row?.settings?.costing ?? null);
+  const { rates, defaults } = resolveRates(((await studioSettings(user.studioId, q)).costing as Parameters<typeof resolveRates>[0] | undefined) ?? null);
   const mills = (await q('organisations').where({ studio_id: user.studioId, kind: 'mill' }).orderBy('name')
     .select('id', 'name', q.raw("settings #> '{costing,machineMinuteRate}' as minute_rate"))) as { id: string; name: string; minute_rate: unknown }[];
   return {
@@ -83,11 +83,9 @@ export async function setStudioCostRates(user: SessionUser, input: CostRatesInpu
   if (fields.length === 0) return studioCostRates(user, q);
   await q.transaction(async (trx) => {
     await assertStudioMills(user.studioId, Object.keys(millRates), (id) => `mills.${id}`, trx);
-    const row = (await trx('studios').where({ id: user.studioId }).forUpdate().first('settings')) as { settings: { costing?: RatesSet } | null } | undefined;
-    const costing = applyRatesChange(row?.settings?.costing, input);
-    await trx('studios').where({ id: user.studioId }).update({
-      settings: trx.raw("jsonb_set(coalesce(settings, '{}'::jsonb), '{costing}', ?::jsonb, true)", [JSON.stringify(costing)]),
-    });
+    const stored = (await studioSettings(user.studioId, trx, { forUpdate: true })).costing as RatesSet | undefined;
+    const costing = applyRatesChange(stored, input);
+    await writeStudioSetting(user.studioId, 'costing', costing, trx);
     for (const [id, rate] of Object.entries(millRates)) {
       await trx('organisations').where({ id, studio_id: user.studioId }).update({
         settings: rate === null

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { db, type Db } from './knex';
+import { studioSettings } from './studio-settings';
 import type { SessionUser } from './users';
 import { findStyle } from './styles';
 import { requireRelease } from './releases';
@@ -51,8 +52,7 @@ interface KnitRow {
 
 /** The studio's test-knit threshold, % (studios.settings.testKnitThresholdPct), else the common-practice 5 %. */
 export async function testKnitThreshold(studioId: string, q: Db = db()): Promise<number> {
-  const row = (await q('studios').where({ id: studioId }).first('settings')) as { settings: Record<string, unknown> } | undefined;
-  const v = row?.settings?.testKnitThresholdPct;
+  const v = (await studioSettings(studioId, q)).testKnitThresholdPct;
   return typeof v === 'number' && v >= 0 && v <= 100 ? v : defaultTestKnitThresholdPct;
 }
 
