@@ -9,7 +9,7 @@ export const metadata: Metadata = { title: 'Sign in' };
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<{ next?: string }> }) {
   const { next } = await searchParams;
-  const safeNext = sameOriginPath(next);
+  const safeNext = sameOriginPath(next, '/styles');
   // Already signed in: go on. (A database outage must not hide the sign-in page.)
   const user = await currentUser().catch(() => null);
   if (user) redirect(safeNext);

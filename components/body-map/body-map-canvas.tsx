@@ -196,11 +196,11 @@ export default function BodyMapCanvas({ editor, state, textures, yarns, fill, ru
   const dpr = typeof window === 'undefined' ? 1 : window.devicePixelRatio || 1;
   const patternPxPerCm = Math.max(8, Math.min(state.camera.pxPerCm * dpr, 400));
   const selected = new Set(state.selection.zoneIds);
-  const pointer = (e: Konva.KonvaEventObject<PointerEvent | MouseEvent>) => {
-    const pos = e.target.getStage()?.getPointerPosition() ?? { x: 0, y: 0 };
-    const ev = e.evt as PointerEvent;
-    return { screen: { x: pos.x, y: pos.y }, button: ev.button, shift: ev.shiftKey, alt: ev.altKey, ctrl: ev.ctrlKey, meta: ev.metaKey };
-  };
+  /** The editor's pointer input: a stage position and the event's button and modifier keys. */
+  const toInput = (pos: { x: number; y: number }, ev: PointerEvent | MouseEvent) =>
+    ({ screen: { x: pos.x, y: pos.y }, button: ev.button, shift: ev.shiftKey, alt: ev.altKey, ctrl: ev.ctrlKey, meta: ev.metaKey });
+  const pointer = (e: Konva.KonvaEventObject<PointerEvent | MouseEvent>) =>
+    toInput(e.target.getStage()?.getPointerPosition() ?? { x: 0, y: 0 }, e.evt);
   // A press that began on the stage is followed on the window until it is released or cancelled,
   // so a drag let go off the canvas still ends (and autosave is no longer held back by it).
   const followPress = (pointerId: number) => {
@@ -208,8 +208,7 @@ export default function BodyMapCanvas({ editor, state, textures, yarns, fill, ru
     const fromWindow = (ev: PointerEvent) => {
       const stage = stageRef.current;
       stage?.setPointersPositions(ev);
-      const pos = stage?.getPointerPosition() ?? { x: 0, y: 0 };
-      return { screen: { x: pos.x, y: pos.y }, button: ev.button, shift: ev.shiftKey, alt: ev.altKey, ctrl: ev.ctrlKey, meta: ev.metaKey };
+      return toInput(stage?.getPointerPosition() ?? { x: 0, y: 0 }, ev);
     };
     const move = (ev: PointerEvent) => { if (ev.pointerId === pointerId) editor.pointerMove(fromWindow(ev)); };
     const end = (ev: PointerEvent) => {
@@ -295,9 +294,9 @@ export default function BodyMapCanvas({ editor, state, textures, yarns, fill, ru
         </Layer>
         <Layer listening={false}>
           {state.doc.panels.map((panel) => {
-            const layout = layouts.find((l) => l.panelId === panel.id);
+            const i = layouts.findIndex((l) => l.panelId === panel.id);
+            const layout = layouts[i];
             if (!layout) return null;
-            const i = layouts.indexOf(layout);
             const before = i > 0 ? layouts[i - 1] : undefined;
             const roomLeftPx = before ? layout.origin.x - (before.origin.x + before.widthPx) : layout.origin.x;
             return <Rulers key={panel.id} panel={panel} layout={layout} unit={rulerUnit} roomLeftPx={roomLeftPx} />;

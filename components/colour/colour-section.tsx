@@ -46,12 +46,13 @@ export function ColourSection({ styleId, can }: { styleId: string; can: ColourAb
   const list = useMemo(() => colourways.data?.colourways ?? [], [colourways.data]);
   const current = list.find((c) => c.id === picked) ?? list[0];
   const yarns = colourways.data?.yarns ?? [];
+  // With the dye plan (studio staff) the preview shows the dyed result; the client sees targets only.
+  // Kept while the colourway is the same, so the preview's memos of the dyed look hold.
+  const previewColourway = useMemo(() => (current ? { targets: current.targets, plan: current.plan ?? undefined } : undefined), [current]);
 
   if (colourways.isLoading) return <div className="h-40 animate-pulse rounded-[var(--radius-card)] bg-rule/50" />;
   if (colourways.error) return <Notice tone="error">Could not load the colourways: {colourways.error.message}</Notice>;
 
-  // With the dye plan (studio staff) the preview shows the dyed result; the client sees targets only.
-  const previewColourway = current ? { targets: current.targets, plan: current.plan ?? undefined } : undefined;
   const previewCard = !can.preview ? null : (
     <Card title="On the body">
       {preview.map.data && preview.textures.data ? (

@@ -35,7 +35,9 @@ export function StudioRates({ studio, editable, onSaved }: { studio: StudioCostR
   const [mills, setMills] = useState<Flat>(() => Object.fromEntries(studio.mills.map((m) => [m.id, m.minuteRate === null ? '' : String(m.minuteRate)])));
   const [errors, setErrors] = useState<Record<string, string[]>>({});
   const [msg, setMsg] = useState<string | null>(null);
-  const num = (k: string) => (v[k]!.trim() === '' ? null : Number(v[k]!.replace(',', '.')));
+  /** A rate as typed: blank is null (back to the example value), a decimal comma is read as a point. */
+  const parse = (t: string) => (t.trim() === '' ? null : Number(t.replace(',', '.')));
+  const num = (k: string) => parse(v[k]!);
   async function save() {
     const rates = {
       currency: v.currency!.trim() === '' ? null : v.currency!.trim().toUpperCase(),
@@ -45,7 +47,7 @@ export function StudioRates({ studio, editable, onSaved }: { studio: StudioCostR
       trimUnitCost: Object.fromEntries(trimCostKinds.map((k) => [k, num(`trimUnitCost.${k}`)])),
     };
     try {
-      const millRates = Object.fromEntries(Object.entries(mills).map(([id, t]) => [id, t.trim() === '' ? null : Number(t.replace(',', '.'))]));
+      const millRates = Object.fromEntries(Object.entries(mills).map(([id, t]) => [id, parse(t)]));
       await api('/api/settings/costing', { method: 'PUT', json: { rates, mills: millRates } });
       setErrors({});
       setMsg('Saved for the studio');

@@ -54,6 +54,9 @@ function fieldList(d: Record<string, unknown>): string | null {
   return names.length ? names.map(fieldWords).join(', ') : 'no fields';
 }
 
+/** A detail that should be text, or '' when it is missing or not text. */
+const text = (v: unknown) => (typeof v === 'string' ? v : '');
+
 /** One line of plain words for an audit entry. */
 export function describeAudit(action: string, details: Record<string, unknown>): string {
   const verb = verbs[action] ?? action;
@@ -95,7 +98,6 @@ function describeStyleFields(d: Record<string, unknown>): string {
 
 /** Releases, client reviews, test knits, mill packs, uploads: which revision, texture, mill or file. */
 function describeMill(action: string, verb: string, d: Record<string, unknown>): string {
-  const text = (v: unknown) => (typeof v === 'string' ? v : '');
   const rev = typeof d.revision === 'number' ? `revision ${d.revision}` : '';
   switch (action) {
     case 'style.release':
@@ -123,7 +125,6 @@ function describeMill(action: string, verb: string, d: Record<string, unknown>):
 
 /** Brief, reference-board and quote entries: which fields changed (never their values), which image. */
 function describeBrief(action: string, verb: string, d: Record<string, unknown>): string {
-  const text = (v: unknown) => (typeof v === 'string' ? v : '');
   switch (action) {
     case 'brief.reference.add':
       return `${verb}${text(d.name) ? ` ${text(d.name)}` : ''}${text(d.tag) ? ` (${text(d.tag)})` : ''}`;
@@ -140,7 +141,6 @@ function describeBrief(action: string, verb: string, d: Record<string, unknown>)
 
 /** Colourway and lab-dip entries: which colourway, target and dip, and the decision. */
 function describeColour(action: string, verb: string, d: Record<string, unknown>): string {
-  const text = (v: unknown) => (typeof v === 'string' ? v : '');
   if (action === 'lab-dip.submit') {
     const dE = typeof d.deltaE === 'number' ? `, ΔE ${d.deltaE.toFixed(2)}` : '';
     return `${verb} ${text(d.colourway)} / ${text(d.target)} (#${String(d.sequence ?? '?')}${dE})`;
@@ -180,7 +180,7 @@ function describeFit(action: string, verb: string, d: Record<string, unknown>): 
 /** Entries that autosave writes many of in a row; the History page shows a run of them as one line. */
 const repeatedActions = new Set(['body-map.save']);
 /** Saves by one person less than this apart belong to one run. */
-export const auditRunGapMs = 30 * 60 * 1000;
+const auditRunGapMs = 30 * 60 * 1000;
 
 /** A History line: one entry, or a run of the same repeated action by the same person. */
 export interface AuditLine<E> {

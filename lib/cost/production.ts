@@ -75,7 +75,7 @@ export interface CircularProductionInput {
  * Needles of the cylinder: `needles` when given, else π × diameter (in) × gauge (needles per inch).
  * Source: textiletutorials.com, "Needle number of machine, = ∏× diameter of cylinder× gauge".
  */
-export function cylinderNeedles(input: Pick<CircularProductionInput, 'needles' | 'diameterIn' | 'gauge' | 'pi'>): number {
+export function productionNeedles(input: Pick<CircularProductionInput, 'needles' | 'diameterIn' | 'gauge' | 'pi'>): number {
   if (input.needles !== undefined) {
     if (!(input.needles > 0) || !Number.isFinite(input.needles)) throw new RangeError(`needles must be above zero (got ${input.needles}).`);
     return input.needles;
@@ -94,7 +94,7 @@ export function cylinderNeedles(input: Pick<CircularProductionInput, 'needles' |
  * length in mm × tex×60× efficiency / 1000×1000×1000" (references.md §7(g)).
  */
 export function circularProductionKgPerMinute(input: CircularProductionInput): number {
-  const needles = cylinderNeedles(input);
+  const needles = productionNeedles(input);
   for (const [name, v] of Object.entries({ rpm: input.rpm, feeders: input.feeders, loopMm: input.loopMm, tex: input.tex })) {
     if (!(v > 0)) throw new RangeError(`${name} must be above zero (got ${v}).`);
   }

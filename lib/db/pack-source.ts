@@ -1,13 +1,12 @@
 import type { Knex } from 'knex';
 import { db, type Db } from './knex';
 import type { SessionUser } from './users';
-import { findStyle, type Style } from './styles';
+import type { Style } from './styles';
 import type { LibraryTexture } from './textures';
 import type { LibraryYarn } from './yarns';
 import { computeFitSheet, fitOfStyle } from './fit';
 import { loadStyleParts } from './style-parts';
 import { listColourways } from './colourways';
-import { notFound } from '@/lib/api/errors';
 import { resolveValues } from '@/lib/fit/grading';
 import { pointsOfMeasure } from '@/lib/fit/points';
 import { packColourFrom, packFormat, type PackColour, type PackData, type PackFit, type PackTexture, type PackYarn } from '@/lib/mill/pack-data';
@@ -85,19 +84,10 @@ async function packColour(user: SessionUser, styleId: string, q: Db): Promise<Pa
 }
 
 /**
- * The style as it stands, as pack data: body map (or the panels generated for it), the textures it
- * uses and their yarns, trims, and the fit and colour parts where they are recorded. Staff only:
- * outside accounts get released snapshots.
- */
-export async function buildPackData(user: SessionUser, styleId: string, q: Knex = db()): Promise<PackData> {
-  const style = await findStyle(user, styleId, q);
-  if (!style) throw notFound('Style not found.');
-  return (await packDataOf(user, style, q)).data;
-}
-
-/**
- * `buildPackData` for a style the caller has already read. `complete` is false when the fit or the
- * colour part could not be read just now and was left out (logged), so the data is not to be kept.
+ * The style as it stands (read by the caller), as pack data: body map (or the panels generated for
+ * it), the textures it uses and their yarns, trims, and the fit and colour parts where they are
+ * recorded. Staff only: outside accounts get released snapshots. `complete` is false when the fit or
+ * the colour part could not be read just now and was left out (logged), so the data is not to be kept.
  */
 export async function packDataOf(user: SessionUser, style: Style, q: Knex = db()): Promise<{ data: PackData; complete: boolean }> {
   let complete = true;

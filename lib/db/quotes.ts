@@ -75,7 +75,7 @@ async function assertStudioMills(studioId: string, ids: readonly string[], field
  * one back to its example default) and the given mills' machine-minute rates (organisations.settings.costing;
  * null clears one, absent mills keep theirs).
  */
-export async function setStudioCostRates(user: SessionUser, input: CostRatesInput, q: Knex = db(), millRates: Readonly<Record<string, number | null>> = {}): Promise<StudioCostRates> {
+export async function setStudioCostRates(user: SessionUser, input: CostRatesInput, millRates: Readonly<Record<string, number | null>> = {}, q: Knex = db()): Promise<StudioCostRates> {
   if (!can(user.role, 'quote:edit')) throw forbidden();
   const given = Object.entries(input).filter(([, v]) => v !== undefined).map(([k]) => k);
   const fields = [...given, ...(Object.keys(millRates).length ? ['millRates'] : [])];

@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import { db, type Db } from './knex';
 import type { SessionUser } from './users';
 import { findStyle } from './styles';
-import { buildPackData } from './pack-source';
+import { packDataOf } from './pack-source';
 import { conflict, forbidden, HttpError, notFound } from '@/lib/api/errors';
 import { can, isOutsideRole } from '@/lib/auth/roles';
 import { sendMail, type MailResult } from '@/lib/mail/mailer';
@@ -187,7 +187,7 @@ export async function releaseStyle(user: SessionUser, styleId: string, input: Re
     if (!mills.some((m) => m.id === id)) errors[`millIds.${i}`] = ['Not a mill of the studio'];
   });
   if (Object.keys(errors).length) throw new HttpError(400, 'Some fields need attention.', { fieldErrors: errors });
-  const data = await buildPackData(user, styleId, q);
+  const { data } = await packDataOf(user, style, q);
   if (!data.textures.length) {
     throw new HttpError(400, 'Some fields need attention.', { fieldErrors: { _: ['The style has no textures yet: there is nothing to knit.'] } });
   }

@@ -524,14 +524,14 @@ export class Editor {
       const panel = findPanel(this.current.doc, panelId);
       if (!panel) return null;
       const id = this.newId();
+      const textureId = props.textureId ?? drawTextureId(this.current, panelId) ?? panel.baseTextureId;
       const zone: cmd.NewZone = {
         id,
         name: props.name ?? freshZoneName(panel),
-        textureId: props.textureId ?? drawTextureId(this.current, panelId) ?? panel.baseTextureId,
-        fn: props.fn ?? this.current.drawDefaults.fn,
+        textureId,
+        // Tagged with what its texture is made for, when the texture says.
+        fn: props.fn ?? this.current.textures[textureId]?.fn ?? this.current.drawDefaults.fn,
       };
-      // A new zone is tagged with what its texture is made for, when the texture says.
-      zone.fn = props.fn ?? this.current.textures[zone.textureId]?.fn ?? zone.fn;
       if (!this.change('Add zone', (doc) => cmd.addZone(doc, panelId, polygon, zone))) return null;
       this.host.setSelection(zoneSelection([id]));
       return id;

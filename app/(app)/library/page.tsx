@@ -20,7 +20,10 @@ export default async function LibraryPage({ searchParams }: { searchParams: Prom
   if (!can(user.role, 'library:read')) redirect('/styles');
   const tab: LibraryTab = (await searchParams).tab === 'yarns' ? 'yarns' : 'textures';
   const canEdit = can(user.role, 'library:edit');
-  const [textures, yarns, ruleLimits] = await Promise.all([listTextures(user), listYarns(user), studioRuleLimits(user.studioId)]);
+  // The machine limits show on the textures tab only.
+  const [textures, yarns, ruleLimits] = await Promise.all([
+    listTextures(user), listYarns(user), tab === 'textures' ? studioRuleLimits(user.studioId) : null,
+  ]);
   return (
     <>
       <PageHeader
@@ -41,7 +44,7 @@ export default async function LibraryPage({ searchParams }: { searchParams: Prom
         <YarnsTable initial={yarns} canEdit={canEdit} />
       ) : (
         <>
-          <MachineLimitsForm initial={ruleLimits} editable={can(user.role, 'studio:settings')} />
+          {ruleLimits ? <MachineLimitsForm initial={ruleLimits} editable={can(user.role, 'studio:settings')} /> : null}
           <TexturesTable initialTextures={textures} initialYarns={yarns} canEdit={canEdit} />
         </>
       )}

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
-  circularProductionKgPerHour, circularProductionKgPerShift, coursesPerMinute, cylinderNeedles, knittingTime,
+  circularProductionKgPerHour, circularProductionKgPerShift, coursesPerMinute, productionNeedles, knittingTime,
 } from '@/lib/cost';
 
 describe('coursesPerMinute', () => {
@@ -59,7 +59,7 @@ describe('circular production', () => {
     const withCount = circularProductionKgPerShift({ ...machine, needles: 1680 }, 480);
     expect(withCount).toBeCloseTo(326.0436, 4);
     expect(withCount).toBeLessThan(circularProductionKgPerShift(machine, 480));
-    expect(cylinderNeedles({ diameterIn: 30, gauge: 18 })).toBeCloseTo(Math.PI * 540, 10);
+    expect(productionNeedles({ diameterIn: 30, gauge: 18 })).toBeCloseTo(Math.PI * 540, 10);
   });
   it('refuses a production with neither the needles nor diameter and gauge, or with no needles', () => {
     const { diameterIn: _d, gauge: _g, ...rest } = machine;

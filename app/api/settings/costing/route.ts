@@ -14,5 +14,5 @@ export const GET = route(async () => {
 export const PUT = route(async (req) => {
   const user = await authorize('quote:edit');
   const { rates, mills } = await parseBody(req, costRatesPutSchema);
-  return NextResponse.json({ costing: await setStudioCostRates(user, rates, undefined, mills) });
+  return NextResponse.json({ costing: await setStudioCostRates(user, rates, mills) });
 });

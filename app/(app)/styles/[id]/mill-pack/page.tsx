@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import { can, isOutsideRole } from '@/lib/auth/roles';
 import { listOrganisations } from '@/lib/db/organisations';
 import { listReleases, requireRelease } from '@/lib/db/releases';
-import { buildPackData } from '@/lib/db/pack-source';
+import { packDataOf } from '@/lib/db/pack-source';
 import { Card, Notice } from '@/components/ui/card';
 import { ExportsPanel } from '@/components/mill/exports-panel';
 import { ReleaseForm } from '@/components/mill/release-form';
@@ -17,7 +17,7 @@ export default async function MillPackPage({ params }: { params: Promise<{ id: s
   const outside = isOutsideRole(user.role);
   const latest = releases[0];
   // Outside accounts print released revisions only; the studio prints the working copy too.
-  const data = outside ? (latest ? (await requireRelease(user, latest.id)).snapshot : null) : await buildPackData(user, style.id);
+  const data = outside ? (latest ? (await requireRelease(user, latest.id)).snapshot : null) : (await packDataOf(user, style)).data;
   const mills = can(user.role, 'style:release') ? (await listOrganisations(user.studioId)).filter((o) => o.kind === 'mill') : [];
   const choices = data
     ? {

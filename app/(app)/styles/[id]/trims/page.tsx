@@ -10,10 +10,12 @@ export const metadata: Metadata = { title: 'Trims' };
 
 export default async function TrimsPage({ params }: { params: Promise<{ id: string }> }) {
   const { user, style } = await workingCopyStyle((await params).id);
-  const { map, textures, yarns: storedYarns, trims } = await loadStyleParts(user, style);
-  const yarns = storedYarns.map((y) => yarnForViewer(user, y));
   // The same flat colours as the body map: it colours the style's textures together with the library for staff.
-  const library = can(user.role, 'library:read') ? await listTextures(user) : [];
+  const [{ map, textures, yarns: storedYarns, trims }, library] = await Promise.all([
+    loadStyleParts(user, style),
+    can(user.role, 'library:read') ? listTextures(user) : Promise.resolve([]),
+  ]);
+  const yarns = storedYarns.map((y) => yarnForViewer(user, y));
   const colourIds = [...new Set([...textures, ...library].map((t) => t.id))];
   return (
     <TrimsWorkspace
