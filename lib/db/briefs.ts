@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { db, type Db } from './knex';
+import { changedKeys } from './changed-keys';
 import type { SessionUser } from './users';
 import { findStyle, type Style } from './styles';
 import { storeFile, withStoredFiles } from './files';
@@ -71,10 +72,6 @@ export async function briefAnswersForStudio(studioId: string, styleId: string, q
   return row ? readBriefAnswers(row.answers) : null;
 }
 
-function changedFields(before: BriefAnswers, after: BriefAnswers): (keyof BriefAnswers)[] {
-  return (Object.keys(after) as (keyof BriefAnswers)[]).filter((k) => JSON.stringify(before[k]) !== JSON.stringify(after[k]));
-}
-
 /**
  * Saves the brief when `input.version` is the stored version (0 for the first save), raising it;
  * otherwise 409 and nothing changes. Sizes of the order must be the style's. The history entry
@@ -108,7 +105,7 @@ export async function saveBrief(user: SessionUser, styleId: string, input: Brief
     await trx('brief_versions').insert({
       style_id: styleId, studio_id: user.studioId, version: current ? input.version + 1 : 1, answers: JSON.stringify(input.answers), saved_by: user.id,
     });
-    const fields = changedFields(current ? readBriefAnswers(current.answers).answers : emptyBrief, input.answers);
+    const fields = changedKeys(current ? readBriefAnswers(current.answers).answers : emptyBrief, input.answers);
     await trx('audit_log').insert({
       studio_id: user.studioId, style_id: styleId, user_id: user.id, action: 'brief.save', details: JSON.stringify({ fields }),
     });
@@ -162,7 +159,7 @@ export async function listBriefVersions(user: SessionUser, styleId: string, q: D
     const before = previous?.answers ?? (earlierUnknown ? r.answers : emptyBrief);
     return {
       version: r.version, savedAt: r.saved_at.toISOString(), savedBy: r.saved_by_name, answers: r.answers, earlierUnknown,
-      changes: changedFields(before, r.answers).map((field) => ({ field, before: before[field], after: r.answers[field] })),
+      changes: changedKeys(before, r.answers).map((field) => ({ field, before: before[field], after: r.answers[field] })),
     };
   });
 }

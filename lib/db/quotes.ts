@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { db, type Db } from './knex';
+import { changedKeys } from './changed-keys';
 import { studioSettings, writeStudioSetting } from './studio-settings';
 import type { SessionUser } from './users';
 import { conflict, forbidden, HttpError, notFound } from '@/lib/api/errors';
@@ -210,8 +211,7 @@ export async function saveQuoteInputs(user: SessionUser, styleId: string, input:
     }
     // Entry names only, never their values: the history is read by client reviewers too.
     const before = quoteInputsSchema.safeParse(current?.inputs ?? {});
-    const was: Record<string, unknown> = before.success ? before.data : {};
-    const fields = Object.keys(input.inputs).filter((k) => JSON.stringify(was[k]) !== JSON.stringify((input.inputs as Record<string, unknown>)[k]));
+    const fields = changedKeys(before.success ? before.data : {}, input.inputs);
     await trx('audit_log').insert({ studio_id: user.studioId, style_id: styleId, user_id: user.id, action: 'quote.save', details: JSON.stringify({ fields }) });
   });
   return loadQuote(user, styleId, q);

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { db, type Db } from './knex';
+import { canonicalJson } from './changed-keys';
 import { isOutsideRole } from '@/lib/auth/roles';
 import type { SessionUser } from './users';
 import type {
@@ -204,15 +205,6 @@ export async function createStyle(user: SessionUser, input: StyleCreate, q: Knex
     if (!style) throw notFound();
     return style;
   });
-}
-
-/** JSON with object keys in one order, so values read back from jsonb compare equal to what was sent. */
-function canonicalJson(value: unknown): string {
-  return JSON.stringify(value, (_key, v: unknown) =>
-    v && typeof v === 'object' && !Array.isArray(v)
-      ? Object.fromEntries(Object.entries(v as Record<string, unknown>).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0)))
-      : v,
-  );
 }
 
 /** The short text fields of a style, logged in the history as from → to. */
